@@ -1,0 +1,92 @@
+package main
+
+import (
+	"encoding/json"
+	"fmt"
+	"io"
+	"os"
+	"strings"
+
+	"github.com/spf13/cobra"
+
+	"github.com/whichreg/whichreg/internal/units"
+)
+
+// enumFlag is a string flag whose value must be one of a list.
+type enumFlag struct {
+	value   *string
+	allowed []string
+}
+
+func (f *enumFlag) String() string { return *f.value }
+func (f *enumFlag) Type() string   { return strings.Join(f.allowed, "|") }
+func (f *enumFlag) Set(v string) error {
+	for _, a := range f.allowed {
+		if v == a {
+			*f.value = v
+			return nil
+		}
+	}
+	return fmt.Errorf("must be one of %s", strings.Join(f.allowed, ", "))
+}
+
+// addFormatFlag adds --format with the given values; the first is the default.
+func addFormatFlag(cmd *cobra.Command, dst *string, allowed ...string) {
+	*dst = allowed[0]
+	cmd.Flags().Var(&enumFlag{dst, allowed}, "format", "output format: "+strings.Join(allowed, ", "))
+	_ = cmd.RegisterFlagCompletionFunc("format", func(*cobra.Command, []string, string) ([]string, cobra.ShellCompDirective) {
+		return allowed, cobra.ShellCompDirectiveNoFileComp
+	})
+}
+
+func addEnumFlag(cmd *cobra.Command, dst *string, name, usage string, allowed ...string) {
+	cmd.Flags().Var(&enumFlag{dst, allowed}, name, usage+" ("+strings.Join(allowed, ", ")+")")
+}
+
+// quantityFlag is a number flag that accepts SI prefixes and RKM code.
+type quantityFlag struct {
+	value *float64
+	unit  string
+	set   *bool
+}
+
+func (f *quantityFlag) String() string {
+	if f.value == nil {
+		return ""
+	}
+	return fmt.Sprint(*f.value)
+}
+func (f *quantityFlag) Type() string { return "value" }
+func (f *quantityFlag) Set(s string) error {
+	v, err := units.Parse(s, f.unit)
+	if err != nil {
+		return err
+	}
+	*f.value = v
+	if f.set != nil {
+		*f.set = true
+	}
+	return nil
+}
+
+// addQuantity adds a number flag in SI base units (V, A, Ω, F, Hz, W).
+func addQuantity(cmd *cobra.Command, dst *float64, name, unit string, def float64, usage string) {
+	*dst = def
+	cmd.Flags().Var(&quantityFlag{value: dst, unit: unit}, name, usage)
+}
+
+func writeJSON(w io.Writer, v any) error {
+	enc := json.NewEncoder(w)
+	enc.SetIndent("", "  ")
+	return enc.Encode(v)
+}
+
+// isTerminal reports whether w is a terminal (tables get a header there).
+func isTerminal(w io.Writer) bool {
+	f, ok := w.(*os.File)
+	if !ok {
+		return false
+	}
+	st, err := f.Stat()
+	return err == nil && st.Mode()&os.ModeCharDevice != 0
+}

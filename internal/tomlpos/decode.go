@@ -1,0 +1,194 @@
+package tomlpos
+
+import (
+	"errors"
+	"fmt"
+	"regexp"
+	"sort"
+	"strconv"
+	"strings"
+	"unicode/utf8"
+
+	"github.com/BurntSushi/toml"
+)
+
+// Error is a problem at a place in a file. Lines and columns start at 1;
+// 0 means the place is not known. Key is the dotted path of the key
+// concerned (with array indices, see [Index]), or "" when there is none.
+type Error struct {
+	File string
+	Line int
+	Col  int
+	Key  string
+	Err  error
+}
+
+// Error returns the problem on one line, "file:line:col: key: message".
+func (e *Error) Error() string {
+	var b strings.Builder
+	if e.File != "" {
+		b.WriteString(e.File)
+		b.WriteString(":")
+	}
+	if e.Line > 0 {
+		b.WriteString(strconv.Itoa(e.Line))
+		b.WriteString(":")
+		if e.Col > 0 {
+			b.WriteString(strconv.Itoa(e.Col))
+			b.WriteString(":")
+		}
+	}
+	if b.Len() > 0 {
+		b.WriteString(" ")
+	}
+	if e.Key != "" {
+		b.WriteString(e.Key)
+		b.WriteString(": ")
+	}
+	if e.Err != nil {
+		b.WriteString(e.Err.Error())
+	}
+	return b.String()
+}
+
+// Unwrap returns the underlying error.
+func (e *Error) Unwrap() error { return e.Err }
+
+// ErrorList is a list of positioned errors. The zero value is an empty list.
+type ErrorList []*Error
+
+// Add appends an error at the place of key in ix (or the nearest enclosing
+// table when the key itself is not written).
+func (l *ErrorList) Add(file string, ix Index, key string, format string, args ...any) {
+	ent := ix.Nearest(key)
+	*l = append(*l, &Error{File: file, Line: ent.Line, Col: ent.Col, Key: key, Err: fmt.Errorf(format, args...)})
+}
+
+// Sort orders the list by file, line and column.
+func (l ErrorList) Sort() {
+	sort.SliceStable(l, func(i, j int) bool {
+		a, b := l[i], l[j]
+		if a.File != b.File {
+			return a.File < b.File
+		}
+		if a.Line != b.Line {
+			return a.Line < b.Line
+		}
+		return a.Col < b.Col
+	})
+}
+
+// Err returns the list as an error, or nil when it is empty.
+func (l ErrorList) Err() error {
+	if len(l) == 0 {
+		return nil
+	}
+	return l
+}
+
+// Error returns the first error and how many more there are.
+func (l ErrorList) Error() string {
+	switch len(l) {
+	case 0:
+		return "no errors"
+	case 1:
+		return l[0].Error()
+	}
+	return fmt.Sprintf("%s (and %d more errors)", l[0], len(l)-1)
+}
+
+var typeErrRE = regexp.MustCompile(`^toml: (?:line (\d+) )?\(last key "([^"]*)"\): (.*)$`)
+
+// Decode decodes the TOML document data strictly into v: syntax errors, type
+// errors and every key that v has no field for are returned as positioned
+// errors naming file. hint is added to the message of an unknown key (for
+// example, where to find the list of known keys). The returned Index locates
+// the document's keys for later checks. ok is false when v could not be
+// decoded (a syntax or type error): its contents are then partial and must
+// not be used.
+func Decode(file string, data []byte, v any, hint string) (ix Index, errs ErrorList, ok bool) {
+	if !utf8.Valid(data) {
+		line := 1 + strings.Count(string(data[:invalidAt(data)]), "\n")
+		errs = append(errs, &Error{File: file, Line: line, Err: errors.New("the file is not UTF-8 text (is it the right file?)")})
+		return nil, errs, false
+	}
+	md, err := toml.Decode(string(data), v)
+	ix = Scan(data)
+	if err != nil {
+		var perr toml.ParseError
+		if errors.As(err, &perr) {
+			msg := perr.Message
+			if perr.Usage != "" {
+				msg += " (" + strings.TrimSpace(strings.SplitN(perr.Usage, "\n", 2)[0]) + ")"
+			}
+			errs = append(errs, &Error{File: file, Line: perr.Position.Line, Col: perr.Position.Col, Key: perr.LastKey, Err: errors.New(msg)})
+			return ix, errs, false
+		}
+		if m := typeErrRE.FindStringSubmatch(err.Error()); m != nil {
+			line, _ := strconv.Atoi(m[1])
+			e := &Error{File: file, Line: line, Key: m[2], Err: errors.New(m[3])}
+			for _, ent := range ix {
+				if ent.Stripped == m[2] && (line == 0 || ent.Line == line) {
+					e.Line, e.Col, e.Key = ent.Line, ent.Col, ent.Path
+					break
+				}
+			}
+			errs = append(errs, e)
+			return ix, errs, false
+		}
+		errs = append(errs, &Error{File: file, Err: errors.New(strings.TrimPrefix(err.Error(), "toml: "))})
+		return ix, errs, false
+	}
+	seen := map[string]bool{}
+	for _, k := range md.Undecoded() {
+		s := k.String()
+		if seen[s] {
+			continue
+		}
+		seen[s] = true
+		ents := ix.StrippedMatches(s)
+		msg := fmt.Sprintf("unknown key %q", k[len(k)-1])
+		if hint != "" {
+			msg += "; " + hint
+		}
+		if len(ents) == 0 {
+			errs = append(errs, &Error{File: file, Key: s, Err: errors.New(msg)})
+			continue
+		}
+		for _, ent := range ents {
+			errs = append(errs, &Error{File: file, Line: ent.Line, Col: ent.Col, Key: ent.Path, Err: errors.New(msg)})
+		}
+	}
+	// A table whose own key is unknown lists its sub-keys too; keep the table.
+	errs = dropNested(errs)
+	errs.Sort()
+	return ix, errs, true
+}
+
+func dropNested(l ErrorList) ErrorList {
+	var out ErrorList
+	for _, e := range l {
+		nested := false
+		for _, o := range l {
+			if o != e && o.File == e.File && strings.HasPrefix(e.Key, o.Key+".") {
+				nested = true
+				break
+			}
+		}
+		if !nested {
+			out = append(out, e)
+		}
+	}
+	return out
+}
+
+func invalidAt(data []byte) int {
+	for i := 0; i < len(data); {
+		r, n := utf8.DecodeRune(data[i:])
+		if r == utf8.RuneError && n <= 1 {
+			return i
+		}
+		i += n
+	}
+	return len(data)
+}
