@@ -1,0 +1,112 @@
+package circuit
+
+import (
+	"fmt"
+	"math"
+)
+
+// WindingFormFactor is the ratio of RMS winding current to DC load current
+// used by [FromRegulation]: from the ngspice reference runs in
+// shared/reference/methods.md §7 (bridge brA_50 1.559 A / 0.843 A = 1.85;
+// centre tap ctA_50 1.183 A / 0.900 A = 1.31 per half; half-wave hwA_50
+// 1.860 A / 0.786 A = 2.37). It varies with ωCR and Rs/RL; these are typical.
+var WindingFormFactor = map[Topology]float64{Bridge: 1.85, CenterTap: 1.31, HalfWave: 2.37}
+
+// FromRegulation turns a transformer's loaded secondary voltage and its
+// regulation into the open-circuit EMF and winding resistance of the model:
+//
+//	regulation = (V_no-load − V_full-load) / V_full-load
+//	EMF = V_loaded·(1 + regulation)
+//	R   = V_loaded·regulation / (F·I_dc)
+//
+// where F is [WindingFormFactor] and I_dc the DC load current at which the
+// secondary was measured. It returns an error when loadA is not positive.
+func FromRegulation(t Topology, vrmsLoadedV, regulation, loadA float64) (emfV, rOhm float64, err error) {
+	if regulation < 0 || regulation > 2 || math.IsNaN(regulation) {
+		return 0, 0, fmt.Errorf("regulation %g is not a fraction between 0 and 2", regulation)
+	}
+	if regulation == 0 {
+		return vrmsLoadedV, 0, nil
+	}
+	if !(loadA > 0) {
+		return 0, 0, fmt.Errorf("regulation needs the load current the secondary was measured at")
+	}
+	f := WindingFormFactor[t]
+	if f == 0 {
+		return 0, 0, fmt.Errorf("unknown rectifier %q", t)
+	}
+	return vrmsLoadedV * (1 + regulation), vrmsLoadedV * regulation / (f * loadA), nil
+}
+
+// CornerSpec says which tolerances to sweep.
+type CornerSpec struct {
+	MainsTol float64 // mains tolerance either way, fraction (0.10 = ±10 %)
+	CapTol   float64 // capacitor tolerance downward, fraction (0.20 = −20 %)
+	LoadMin  Load    // lightest load
+	LoadMax  Load    // heaviest load
+}
+
+// Corner is one evaluated corner.
+type Corner struct {
+	Name      string  `json:"name"`
+	Mains     float64 `json:"mains"`      // multiplier on the secondary EMF
+	CapFactor float64 `json:"cap_factor"` // multiplier on the capacitance
+	Load      Load    `json:"load"`
+	Result    Result  `json:"result"`
+}
+
+// CornerResult holds every corner and the two that decide the checks.
+type CornerResult struct {
+	Corners     []Corner `json:"corners"`
+	WorstTrough Corner   `json:"worst_trough"` // lowest trough: dropout
+	WorstPeak   Corner   `json:"worst_peak"`   // highest peak: input maximum
+}
+
+// Corners solves r at every combination of mains low/high, load min/max and
+// capacitance nominal/low, and returns the corners with the lowest trough and
+// the highest peak. Corners that cannot carry their load are reported as an
+// error naming the corner.
+func (r Rectifier) Corners(spec CornerSpec) (CornerResult, error) {
+	if spec.MainsTol < 0 || spec.MainsTol >= 1 || spec.CapTol < 0 || spec.CapTol >= 1 {
+		return CornerResult{}, fmt.Errorf("tolerances must be fractions from 0 to below 1 (mains %g, capacitor %g)", spec.MainsTol, spec.CapTol)
+	}
+	var out CornerResult
+	first := true
+	for _, m := range []struct {
+		name string
+		f    float64
+	}{{"low mains", 1 - spec.MainsTol}, {"high mains", 1 + spec.MainsTol}} {
+		for _, l := range []struct {
+			name string
+			load Load
+		}{{"light load", spec.LoadMin}, {"full load", spec.LoadMax}} {
+			for _, c := range []struct {
+				name string
+				f    float64
+			}{{"nominal C", 1}, {"low C", 1 - spec.CapTol}} {
+				if c.f == 1 && c.name == "low C" {
+					continue
+				}
+				rc := r
+				rc.VrmsV *= m.f
+				rc.CapF *= c.f
+				rc.Load = l.load
+				name := m.name + ", " + l.name + ", " + c.name
+				res, err := rc.Solve()
+				if err != nil {
+					return CornerResult{}, fmt.Errorf("%s: %w", name, err)
+				}
+				cn := Corner{Name: name, Mains: m.f, CapFactor: c.f, Load: l.load, Result: res}
+				out.Corners = append(out.Corners, cn)
+				if first || res.TroughV < out.WorstTrough.Result.TroughV {
+					out.WorstTrough = cn
+				}
+				if first || res.PeakV > out.WorstPeak.Result.PeakV {
+					out.WorstPeak = cn
+				}
+				first = false
+			}
+		}
+	}
+	return out, nil
+}

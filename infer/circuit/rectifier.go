@@ -1,0 +1,391 @@
+package circuit
+
+import (
+	"errors"
+	"fmt"
+	"math"
+)
+
+// Topology is a rectifier arrangement.
+type Topology string
+
+// Rectifier topologies.
+const (
+	HalfWave  Topology = "half-wave"  // one diode, one pulse per mains cycle
+	CenterTap Topology = "center-tap" // two diodes, centre-tapped secondary; Vrms is per half
+	Bridge    Topology = "bridge"     // four diodes, two in each conducting path
+)
+
+// ParseTopology returns the topology named s ("bridge", "center-tap" or "ct", "half-wave" or "hw").
+func ParseTopology(s string) (Topology, error) {
+	switch s {
+	case "bridge", "br", "full-wave-bridge":
+		return Bridge, nil
+	case "center-tap", "centre-tap", "ct":
+		return CenterTap, nil
+	case "half-wave", "hw":
+		return HalfWave, nil
+	}
+	return "", fmt.Errorf("unknown rectifier %q (use bridge, center-tap or half-wave)", s)
+}
+
+// diodes returns the number of diodes in one conducting path.
+func (t Topology) diodes() int {
+	if t == Bridge {
+		return 2
+	}
+	return 1
+}
+
+// fullWave reports whether the output has two pulses per mains cycle.
+func (t Topology) fullWave() bool { return t == Bridge || t == CenterTap }
+
+// Diode is a Shockley junction with series resistance:
+//
+//	i = IS·(exp(vj/(N·Vt)) − 1),   v = vj + i·RS,   Vt = k·T/q
+//
+// the static part of the SPICE diode model (junction capacitance and
+// transit time are left out).
+type Diode struct {
+	IS    float64 // saturation current, A
+	N     float64 // emission coefficient
+	RS    float64 // series resistance, Ω
+	TempC float64 // junction temperature, °C (27 if zero, as SPICE)
+}
+
+// Diode1N4007 is the widely circulated SPICE model of a 1N4007 rectifier
+// (IS = 7.02767 nA, N = 1.80803, RS = 34.2 mΩ), the one behind the ngspice
+// reference runs in shared/reference/spice.
+var Diode1N4007 = Diode{IS: 7.02767e-9, N: 1.80803, RS: 0.0341512}
+
+// boltzmannOverQ is k/q in V/K (CODATA 2018: k = 1.380649e-23 J/K, q = 1.602176634e-19 C).
+const boltzmannOverQ = 1.380649e-23 / 1.602176634e-19
+
+func (d Diode) vt() float64 {
+	t := d.TempC
+	if t == 0 {
+		t = 27
+	}
+	return d.N * boltzmannOverQ * (t + 273.15)
+}
+
+// Load is what the filter capacitor feeds: a constant current (a series
+// regulator draws its load current whatever its input), a resistance, or
+// nothing (both zero).
+type Load struct {
+	Amps float64 // constant current, A; used when > 0
+	Ohms float64 // resistance, Ω; used when Amps is 0 and Ohms > 0
+}
+
+// Rectifier is a transformer secondary, rectifier, filter capacitor and load.
+// The secondary is an ideal sine of RMS value VrmsV (per half-winding for a
+// centre tap) behind SourceOhm (winding resistance per conducting path).
+type Rectifier struct {
+	Topology  Topology
+	VrmsV     float64 // open-circuit secondary EMF, V RMS (per half for CenterTap)
+	Hz        float64 // mains frequency
+	CapF      float64 // filter capacitance, F
+	ESROhm    float64 // capacitor equivalent series resistance, Ω
+	SourceOhm float64 // winding resistance per conducting path, Ω
+	Load      Load
+	Diode     Diode // zero value: Diode1N4007
+	// StepsPerCycle is the number of time steps per mains cycle (2000 if zero).
+	StepsPerCycle int
+}
+
+// Result is the periodic steady state of a [Rectifier].
+type Result struct {
+	PeakV         float64 `json:"peak_v"`           // highest filtered voltage
+	TroughV       float64 `json:"trough_v"`         // lowest filtered voltage (the ripple valley)
+	MeanV         float64 `json:"mean_v"`           // time average
+	RippleVpp     float64 `json:"ripple_vpp"`       // PeakV − TroughV
+	CapRippleARMS float64 `json:"cap_ripple_a_rms"` // RMS capacitor current
+	DiodePeakA    float64 `json:"diode_peak_a"`     // peak current in one diode
+	ConductionDeg float64 `json:"conduction_deg"`   // degrees of the mains cycle one diode carries more than 1 % of its peak
+	LoadA         float64 `json:"load_a"`           // mean load current
+	// SettleCycles is how many mains cycles a simulation started from an
+	// empty capacitor needs to come within 1e-6 of this state (from the
+	// contraction rate the shooting method measured).
+	SettleCycles int `json:"settle_cycles"`
+}
+
+// ErrNoSteadyState is returned when the solver could not find the periodic
+// steady state.
+var ErrNoSteadyState = errors.New("no periodic steady state found")
+
+// Validate checks that the circuit is inside the documented ranges.
+func (r Rectifier) Validate() error {
+	fin := func(name string, v, lo, hi float64) error {
+		if math.IsNaN(v) || math.IsInf(v, 0) || v < lo || v > hi {
+			return fmt.Errorf("%s = %g is outside %g to %g", name, v, lo, hi)
+		}
+		return nil
+	}
+	switch r.Topology {
+	case HalfWave, CenterTap, Bridge:
+	default:
+		return fmt.Errorf("unknown rectifier %q", r.Topology)
+	}
+	d := r.diode()
+	for _, e := range []error{
+		fin("secondary voltage (V RMS)", r.VrmsV, 0.5, 5000),
+		fin("mains frequency (Hz)", r.Hz, 1, 1000),
+		fin("filter capacitance (F)", r.CapF, 1e-9, 10),
+		fin("capacitor ESR (Ω)", r.ESROhm, 0, 1000),
+		fin("source resistance (Ω)", r.SourceOhm, 0, 1e5),
+		fin("load current (A)", r.Load.Amps, 0, 1000),
+		fin("load resistance (Ω)", r.Load.Ohms, 0, 1e9),
+		fin("diode IS (A)", d.IS, 1e-18, 1e-3),
+		fin("diode N", d.N, 0.01, 10),
+		fin("diode RS (Ω)", d.RS, 0, 100),
+	} {
+		if e != nil {
+			return e
+		}
+	}
+	if r.Load.Ohms > 0 && r.Load.Ohms < 1e-3 {
+		return fmt.Errorf("load resistance %g Ω is a short circuit", r.Load.Ohms)
+	}
+	if float64(r.Topology.diodes())*d.RS+r.SourceOhm+r.ESROhm < 1e-4 {
+		return errors.New("the charging path has no resistance at all; give the winding resistance or the capacitor ESR")
+	}
+	if r.StepsPerCycle != 0 && (r.StepsPerCycle < 100 || r.StepsPerCycle > 200000) {
+		return fmt.Errorf("steps per cycle %d is outside 100 to 200000", r.StepsPerCycle)
+	}
+	return nil
+}
+
+func (r Rectifier) diode() Diode {
+	if r.Diode == (Diode{}) {
+		return Diode1N4007
+	}
+	return r.Diode
+}
+
+// state is the solver's view of the circuit.
+type state struct {
+	nd           float64 // diodes per path
+	is, nvt, rsd float64
+	rlin         float64 // source + ESR (scaled) in series with the diodes
+	k            float64 // output-node divider for a resistive load
+	c, esr       float64
+	il, rl       float64
+	vp, w        float64
+	full         bool
+}
+
+// drive returns the rectified source EMF at time t.
+func (s *state) drive(t float64) float64 {
+	e := s.vp * math.Sin(s.w*t)
+	if s.full {
+		return math.Abs(e)
+	}
+	return e
+}
+
+// diodeCurrent solves nd·vj + i(vj)·R = a for the path current and returns
+// it with di/da, by Newton's method on the convex function.
+func (s *state) diodeCurrent(a float64, guess float64) (i, didA, vj float64) {
+	if a <= 0 {
+		return 0, 0, 0
+	}
+	r := s.nd*s.rsd + s.rlin
+	hi := a / s.nd
+	if r > 0 {
+		if b := s.nvt * math.Log1p(a/(r*s.is)); b < hi {
+			hi = b
+		}
+	}
+	// Newton from a warm start; from below the first step overshoots above
+	// the root, after which the iterates fall monotonically. Clamping to hi
+	// keeps exp finite.
+	v := hi
+	if guess > 0 && guess < hi {
+		v = guess
+	}
+	var ex float64
+	for it := 0; it < 100; it++ {
+		ex = math.Exp(v / s.nvt)
+		g := s.nd*v + s.is*(ex-1)*r - a
+		dg := s.nd + s.is*ex/s.nvt*r
+		step := g / dg
+		if math.Abs(step) < 1e-9*s.nvt {
+			break
+		}
+		v -= step
+		if v > hi {
+			v = hi
+		}
+	}
+	i = s.is * (ex - 1)
+	if i < 0 {
+		i = 0
+	}
+	didA = 1 / (s.nd*s.nvt/(i+s.is) + r)
+	return i, didA, v
+}
+
+// capCurrent returns the capacitor current at capacitor voltage vc and time t,
+// its derivative with respect to vc, the path current and the output voltage.
+func (s *state) capCurrent(vc, t, guess float64) (ic, dic, id, vout, vj float64) {
+	e := s.drive(t)
+	if s.rl > 0 {
+		a := e - s.k*vc
+		var dida float64
+		id, dida, vj = s.diodeCurrent(a, guess)
+		ic = id*(1-s.k*s.esr/s.rl) - s.k*vc/s.rl
+		dic = -s.k*dida*(1-s.k*s.esr/s.rl) - s.k/s.rl
+		vout = s.k * (vc + s.esr*id)
+		return
+	}
+	a := e - vc + s.esr*s.il
+	var dida float64
+	id, dida, vj = s.diodeCurrent(a, guess)
+	ic = id - s.il
+	dic = -dida
+	vout = vc + s.esr*ic
+	return
+}
+
+// cycle integrates one output period from vc0 with the trapezoidal rule and
+// returns the final voltage and d(final)/d(vc0). When rec is non-nil it
+// records the waveform.
+func (s *state) cycle(vc0 float64, steps int, period float64, rec *Result) (float64, float64) {
+	dt := period / float64(steps)
+	dtc := dt / s.c // dv = dt·i/C
+	vc := vc0
+	sens := 1.0
+	ic, dic, id, vout, vj := s.capCurrent(vc, 0, 0)
+	var sumV, sumI2 float64
+	peakV, troughV, peakI := vout, vout, id
+	ids := make([]float64, 0)
+	if rec != nil {
+		ids = make([]float64, 0, steps+1)
+		ids = append(ids, id)
+	}
+	for n := 1; n <= steps; n++ {
+		t := float64(n) * dt
+		// Solve x − vc − dt/(2C)·(ic + ic(x, t)) = 0 by Newton's method; h is increasing.
+		x := vc + dtc*ic
+		var icx, dicx, idx, voutx, vjx float64
+		guess := vj
+		for it := 0; it < 60; it++ {
+			icx, dicx, idx, voutx, vjx = s.capCurrent(x, t, guess)
+			guess = vjx
+			h := x - vc - dtc/2*(ic+icx)
+			dh := 1 - dtc/2*dicx
+			step := h / dh
+			if math.Abs(step) < 1e-11*math.Max(1, math.Abs(x)) {
+				break // keep the values evaluated at x
+			}
+			x -= step
+		}
+		sens *= (1 + dtc/2*dic) / (1 - dtc/2*dicx)
+		if rec != nil {
+			sumV += dt / 2 * (vout + voutx)
+			sumI2 += dt / 2 * (ic*ic + icx*icx)
+			peakV = math.Max(peakV, voutx)
+			troughV = math.Min(troughV, voutx)
+			peakI = math.Max(peakI, idx)
+			ids = append(ids, idx)
+		}
+		vc, ic, dic, id, vout, vj = x, icx, dicx, idx, voutx, vjx
+	}
+	if rec != nil {
+		rec.PeakV, rec.TroughV = peakV, troughV
+		rec.MeanV = sumV / period
+		rec.RippleVpp = peakV - troughV
+		rec.CapRippleARMS = math.Sqrt(sumI2 / period)
+		rec.DiodePeakA = peakI
+		on := 0
+		for _, v := range ids[1:] {
+			if v > 0.01*peakI {
+				on++
+			}
+		}
+		mains := 1 / s.w * 2 * math.Pi
+		rec.ConductionDeg = float64(on) * dt / mains * 360
+		if s.rl > 0 {
+			rec.LoadA = rec.MeanV / s.rl
+		} else {
+			rec.LoadA = s.il
+		}
+	}
+	return vc, sens
+}
+
+// Solve finds the periodic steady state by shooting: Newton's method on the
+// capacitor voltage at the start of a ripple period, with the derivative
+// carried through the time steps. It returns [ErrNoSteadyState] (wrapped)
+// when it does not converge, and an error when the capacitor cannot hold up
+// the load at all.
+func (r Rectifier) Solve() (Result, error) {
+	if err := r.Validate(); err != nil {
+		return Result{}, err
+	}
+	d := r.diode()
+	s := &state{
+		nd: float64(r.Topology.diodes()), is: d.IS, nvt: d.vt(), rsd: d.RS,
+		c: r.CapF, esr: r.ESROhm, il: r.Load.Amps, vp: math.Sqrt2 * r.VrmsV,
+		w: 2 * math.Pi * r.Hz, full: r.Topology.fullWave(),
+	}
+	if s.il == 0 && r.Load.Ohms > 0 {
+		s.rl = r.Load.Ohms
+		s.k = s.rl / (s.rl + s.esr)
+		s.rlin = r.SourceOhm + s.k*s.esr
+	} else {
+		s.rlin = r.SourceOhm + s.esr
+	}
+	steps := r.StepsPerCycle
+	if steps == 0 {
+		steps = 2000
+	}
+	period := 1 / r.Hz
+	if s.full {
+		period /= 2
+		steps /= 2
+	}
+	x := math.Max(0, s.vp-s.nd*0.7)
+	var sens float64
+	converged := false
+	for it := 0; it < 60; it++ {
+		var end float64
+		end, sens = s.cycle(x, steps, period, nil)
+		f := end - x
+		if math.Abs(f) < 1e-9*math.Max(1, s.vp) {
+			converged = true
+			break
+		}
+		den := sens - 1
+		if math.Abs(den) < 1e-15 {
+			break
+		}
+		nx := x - f/den
+		if math.IsNaN(nx) || math.IsInf(nx, 0) {
+			break
+		}
+		// Keep the iterate physical: between a deep discharge and the peak.
+		nx = math.Min(nx, s.vp+1)
+		nx = math.Max(nx, -s.vp)
+		x = nx
+	}
+	if !converged {
+		return Result{}, fmt.Errorf("rectifier: %w after 60 shooting iterations", ErrNoSteadyState)
+	}
+	var res Result
+	s.cycle(x, steps, period, &res)
+	if res.TroughV <= 0 {
+		return Result{}, fmt.Errorf("rectifier: the filter cannot carry this load: the voltage falls to %.3g V each cycle (more capacitance or less load)", res.TroughV)
+	}
+	// Settling from an empty capacitor: sens per ripple period is the contraction rate.
+	cyc := 20
+	if sens > 0 && sens < 1 {
+		n := math.Log(1e-6) / math.Log(sens)
+		if s.full {
+			n /= 2
+		}
+		cyc = int(math.Ceil(n)) + 10
+	}
+	res.SettleCycles = min(max(cyc, 20), 5000)
+	return res, nil
+}
