@@ -6,4 +6,3 @@ func newEvidenceCmd(app *App) *cobra.Command      { return &cobra.Command{Use: "
 func newInferCmd(app *App, _ any) *cobra.Command  { return &cobra.Command{Use: "infer", Hidden: true} }
 func newSwapCmd(app *App, _ any) *cobra.Command   { return &cobra.Command{Use: "swap", Hidden: true} }
 func newRecordCmd(app *App, _ any) *cobra.Command { return &cobra.Command{Use: "record", Hidden: true} }
-func newCalcCmd(app *App) *cobra.Command          { return &cobra.Command{Use: "calc", Hidden: true} }

@@ -48,7 +48,7 @@ type DividerSpec struct {
 }
 
 // ChooseDivider picks a pair from the series with the divider current at or
-// above MinLoadA: among the pairs within 0.5 % of the target (or as close as
+// above MinLoadA: among the pairs within 1 % of the target (or as close as
 // the closest pair, if none is that close) the one with the largest R1, which
 // wastes least current. It returns an
 // error when the target is at or below Vref (plus the rail), or when no pair
@@ -96,13 +96,13 @@ func ChooseDivider(s DividerSpec) (DividerChoice, error) {
 	found := len(all) > 0
 	var best DividerChoice
 	if found {
-		// The closest pair sets the bar; within 0.5 % of the target (or of
+		// The closest pair sets the bar; within 1 % of the target (or of
 		// that best error) the pair with the largest R1 wastes least current.
 		minErr := math.Inf(1)
 		for _, c := range all {
 			minErr = math.Min(minErr, math.Abs(c.ErrorV))
 		}
-		bar := math.Max(minErr, 0.005*math.Abs(s.TargetV))
+		bar := math.Max(minErr, 0.01*math.Abs(s.TargetV))
 		for _, c := range all {
 			if math.Abs(c.ErrorV) <= bar+1e-12 && (best.R1Ohm == 0 || c.R1Ohm > best.R1Ohm ||
 				(c.R1Ohm == best.R1Ohm && math.Abs(c.ErrorV) < math.Abs(best.ErrorV))) {
