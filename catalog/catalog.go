@@ -48,6 +48,9 @@ type Outline struct {
 	CaseTerminal bool `toml:"case_terminal" json:"case_terminal,omitempty"`
 	// Isolated is true when the mounting surface is insulated from every lead.
 	Isolated bool `toml:"isolated" json:"isolated,omitempty"`
+	// Commonness is 1 (rare) to 5 (everywhere) among regulators: how a
+	// family's prior is shared among its packages. 0 means 3.
+	Commonness int `toml:"commonness" json:"commonness,omitempty"`
 	// SMD is true for surface-mount outlines.
 	SMD bool `toml:"smd" json:"smd,omitempty"`
 	// View is the viewing convention under which leads are numbered 1..n.
@@ -218,6 +221,14 @@ func (c *Catalog) Sorted() []*Family {
 	}
 	sort.Slice(out, func(i, j int) bool { return out[i].ID < out[j].ID })
 	return out
+}
+
+// Weight returns the outline's share weight for the prior (its commonness, 3 if unset).
+func (o *Outline) Weight() float64 {
+	if o == nil || o.Commonness == 0 {
+		return 3
+	}
+	return float64(o.Commonness)
 }
 
 // Negative reports whether the family regulates a negative rail.

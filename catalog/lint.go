@@ -87,6 +87,9 @@ func lintOutline(o *Outline, errs *ErrorList) {
 	if o.HoleSpacingMM < 0 || o.HoleSpacingMM > 100 || bad(o.HoleSpacingMM) {
 		p.add(errs, "hole_spacing_mm", "hole_spacing_mm = %g is impossible; give millimetres, or leave it out", o.HoleSpacingMM)
 	}
+	if o.Commonness < 0 || o.Commonness > 5 {
+		p.add(errs, "commonness", "commonness = %d is not 1 (rare) to 5 (everywhere), or 0 for the default", o.Commonness)
+	}
 	if o.CaseTerminal && !o.MetalCan {
 		p.add(errs, "case_terminal", "case_terminal needs metal_can = true")
 	}

@@ -21,6 +21,7 @@ tab = false                     # a metal tab or pad
 metal_can = false               # a metal can (TO-3, TO-39)
 case_terminal = false           # the can is the third terminal (TO-3, TO-66)
 isolated = true                 # no exposed metal
+commonness = 2                  # 1 rare ... 5 everywhere: shares a family's prior among packages
 smd = false                     # surface mount
 view = "marked face toward you, leads down: 1-2-3 from the left"
 source = "maker's package drawing, title and revision"
