@@ -314,15 +314,33 @@ func (s *state) cycle(vc0 float64, steps int, period float64, rec *Result) (floa
 	return vc, sens
 }
 
-// Solve finds the periodic steady state by shooting: Newton's method on the
-// capacitor voltage at the start of a ripple period, with the derivative
-// carried through the time steps. It returns [ErrNoSteadyState] (wrapped)
-// when it does not converge, and an error when the capacitor cannot hold up
-// the load at all.
-func (r Rectifier) Solve() (Result, error) {
-	if err := r.Validate(); err != nil {
-		return Result{}, err
+// shoot finds the capacitor voltage at the start of a periodic ripple period
+// by Newton's method, and returns it with the sensitivity of one period.
+func (s *state) shoot(steps int, period float64) (x, sens float64, converged bool) {
+	x = math.Max(0, s.vp-s.nd*0.7)
+	for it := 0; it < 60; it++ {
+		var end float64
+		end, sens = s.cycle(x, steps, period, nil)
+		f := end - x
+		if math.Abs(f) < 1e-9*math.Max(1, s.vp) {
+			return x, sens, true
+		}
+		den := sens - 1
+		if math.Abs(den) < 1e-15 {
+			return x, sens, false
+		}
+		nx := x - f/den
+		if math.IsNaN(nx) || math.IsInf(nx, 0) {
+			return x, sens, false
+		}
+		// Keep the iterate physical: between a deep discharge and the peak.
+		x = math.Max(math.Min(nx, s.vp+1), -s.vp)
 	}
+	return x, sens, false
+}
+
+// newState sets up the solver for r and returns it with the steps per mains cycle.
+func (r Rectifier) newState() (*state, int) {
 	d := r.diode()
 	s := &state{
 		nd: float64(r.Topology.diodes()), is: d.IS, nvt: d.vt(), rsd: d.RS,
@@ -340,35 +358,25 @@ func (r Rectifier) Solve() (Result, error) {
 	if steps == 0 {
 		steps = 2000
 	}
+	return s, steps
+}
+
+// Solve finds the periodic steady state by shooting: Newton's method on the
+// capacitor voltage at the start of a ripple period, with the derivative
+// carried through the time steps. It returns [ErrNoSteadyState] (wrapped)
+// when it does not converge, and an error when the capacitor cannot hold up
+// the load at all.
+func (r Rectifier) Solve() (Result, error) {
+	if err := r.Validate(); err != nil {
+		return Result{}, err
+	}
+	s, steps := r.newState()
 	period := 1 / r.Hz
 	if s.full {
 		period /= 2
 		steps /= 2
 	}
-	x := math.Max(0, s.vp-s.nd*0.7)
-	var sens float64
-	converged := false
-	for it := 0; it < 60; it++ {
-		var end float64
-		end, sens = s.cycle(x, steps, period, nil)
-		f := end - x
-		if math.Abs(f) < 1e-9*math.Max(1, s.vp) {
-			converged = true
-			break
-		}
-		den := sens - 1
-		if math.Abs(den) < 1e-15 {
-			break
-		}
-		nx := x - f/den
-		if math.IsNaN(nx) || math.IsInf(nx, 0) {
-			break
-		}
-		// Keep the iterate physical: between a deep discharge and the peak.
-		nx = math.Min(nx, s.vp+1)
-		nx = math.Max(nx, -s.vp)
-		x = nx
-	}
+	x, sens, converged := s.shoot(steps, period)
 	if !converged {
 		return Result{}, fmt.Errorf("rectifier: %w after 60 shooting iterations", ErrNoSteadyState)
 	}
@@ -388,4 +396,48 @@ func (r Rectifier) Solve() (Result, error) {
 	}
 	res.SettleCycles = min(max(cyc, 20), 5000)
 	return res, nil
+}
+
+// Waveform returns the steady-state filtered voltage over the given number of
+// mains cycles, sampled at every time step: times in seconds from a zero
+// crossing of the source, and volts.
+func (r Rectifier) Waveform(cycles int) (times, volts []float64, err error) {
+	if cycles < 1 || cycles > 20 {
+		return nil, nil, fmt.Errorf("waveform: %d cycles is outside 1 to 20", cycles)
+	}
+	if _, err := r.Solve(); err != nil {
+		return nil, nil, err
+	}
+	s, steps := r.newState()
+	period := 1 / r.Hz
+	ps, pst := period, steps
+	if s.full {
+		ps, pst = period/2, steps/2
+	}
+	x, _, _ := s.shoot(pst, ps)
+	dt := period / float64(steps)
+	vc := x
+	ic, _, _, vout, vj := s.capCurrent(vc, 0, 0)
+	times = append(times, 0)
+	volts = append(volts, vout)
+	dtc := dt / s.c
+	for n := 1; n <= steps*cycles; n++ {
+		t := float64(n) * dt
+		xn := vc + dtc*ic
+		var icx, voutx, vjx float64
+		for it := 0; it < 60; it++ {
+			var dicx float64
+			icx, dicx, _, voutx, vjx = s.capCurrent(xn, t, vj)
+			h := xn - vc - dtc/2*(ic+icx)
+			step := h / (1 - dtc/2*dicx)
+			if math.Abs(step) < 1e-11*math.Max(1, math.Abs(xn)) {
+				break
+			}
+			xn -= step
+		}
+		vc, ic, vj = xn, icx, vjx
+		times = append(times, t)
+		volts = append(volts, voutx)
+	}
+	return times, volts, nil
 }

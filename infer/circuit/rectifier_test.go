@@ -291,3 +291,22 @@ func BenchmarkCorners(b *testing.B) {
 		}
 	}
 }
+
+func TestWaveform(t *testing.T) {
+	r := Rectifier{Topology: Bridge, VrmsV: 12, Hz: 50, CapF: 2200e-6, SourceOhm: 0.5, Load: Load{Ohms: 15}}
+	res, _ := r.Solve()
+	ts, vs, err := r.Waveform(2)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(ts) != 4001 || len(vs) != 4001 || math.Abs(ts[len(ts)-1]-0.04) > 1e-9 {
+		t.Fatalf("%d points ending at %g s", len(ts), ts[len(ts)-1])
+	}
+	lo, hi := vs[0], vs[0]
+	for _, v := range vs {
+		lo, hi = math.Min(lo, v), math.Max(hi, v)
+	}
+	if !within(lo, res.TroughV, 1e-3) || !within(hi, res.PeakV, 1e-3) {
+		t.Errorf("waveform %g..%g V, steady state %g..%g V", lo, hi, res.TroughV, res.PeakV)
+	}
+}
