@@ -1,0 +1,272 @@
+package main
+
+import (
+	"fmt"
+	"io"
+	"strconv"
+	"strings"
+
+	"github.com/spf13/cobra"
+
+	"github.com/whichreg/whichreg/catalog"
+	"github.com/whichreg/whichreg/infer"
+)
+
+type swapOptions struct {
+	app      *App
+	Format   string
+	Original string
+	All      bool
+	File     string
+	Details  int
+}
+
+func newSwapCmd(app *App, runF func(*swapOptions) error) *cobra.Command {
+	opts := &swapOptions{app: app}
+	cmd := &cobra.Command{
+		Use:   "swap EVIDENCE.toml",
+		Short: "Rank current-production replacements, each checked against the real circuit",
+		Long: `swap takes the original from infer's leader (or from --original) and checks
+every current-production candidate in every package: outline and footprint,
+lead-by-lead function, tab potential against the mounting, polarity, output
+voltage, current, input maximum at high mains and light load, dropout at the
+ripple trough at low mains and full load, junction temperature, output-capacitor
+stability and minimum load. Drop-in parts come first, then parts that need
+work; unsuitable ones are shown with --all or when nothing else fits.
+
+--original takes ID, ID:OUTLINE or ID:OUTLINE:VOUT, e.g. 78xx:TO-3:5.`,
+		Example: `  whichreg swap testdata/demo/vending-lifted-ground.toml
+  whichreg swap board.toml --original 317:TO-220 --format json
+  whichreg swap board.toml --all`,
+		Args: cobra.ExactArgs(1),
+		RunE: func(cmd *cobra.Command, args []string) error {
+			opts.File = args[0]
+			if runF != nil {
+				return runF(opts)
+			}
+			return swapRun(opts)
+		},
+	}
+	addFormatFlag(cmd, &opts.Format, "text", "json", "markdown")
+	cmd.Flags().StringVar(&opts.Original, "original", "", "the original part as `ID[:OUTLINE[:VOUT]]` instead of infer's leader")
+	cmd.Flags().BoolVar(&opts.All, "all", false, "include obsolete, scarce and unsuitable candidates")
+	cmd.Flags().IntVar(&opts.Details, "details", 3, "show the full check table of this many candidates (text)")
+	return cmd
+}
+
+// parseOriginal resolves ID[:OUTLINE[:VOUT]] against the catalog.
+func parseOriginal(c *catalog.Catalog, spec string) (infer.Hypothesis, error) {
+	parts := strings.SplitN(spec, ":", 3)
+	f := c.Family(parts[0])
+	if f == nil {
+		return infer.Hypothesis{}, inputError(fmt.Errorf("--original: no family %q in the catalog", parts[0]), suggestIDs(c, parts[0]))
+	}
+	p := &f.Packages[0]
+	if len(parts) > 1 && parts[1] != "" {
+		p = f.Package(c, parts[1])
+		if p == nil {
+			return infer.Hypothesis{}, inputError(fmt.Errorf("--original: %s does not come in %q (it comes in %s)", f.ID, parts[1], packagesText(f)))
+		}
+	}
+	h := infer.Hypothesis{Family: f, Package: p, Outline: c.Outline(p.Outline)}
+	if len(parts) > 2 {
+		v, err := strconv.ParseFloat(strings.TrimSuffix(parts[2], "V"), 64)
+		if err != nil || v == 0 {
+			return h, inputError(fmt.Errorf("--original: %q is not an output voltage", parts[2]))
+		}
+		if v < 0 {
+			v = -v
+		}
+		h.VoutV = v
+	} else if !f.Adjustable() && len(f.OutputsV) == 1 {
+		h.VoutV = f.OutputsV[0]
+	}
+	return h, nil
+}
+
+// resolveOriginal returns the original: named, or infer's leader.
+func resolveOriginal(app *App, c *catalog.Catalog, ev *infer.Evidence, spec string) (infer.Hypothesis, float64, bool, *infer.Result, error) {
+	res, err := infer.Identify(c, ev, infer.Options{})
+	if err != nil {
+		return infer.Hypothesis{}, 0, false, nil, inputError(err)
+	}
+	if spec != "" {
+		h, err := parseOriginal(c, spec)
+		if err != nil {
+			return h, 0, false, res, err
+		}
+		if !h.Family.Adjustable() && h.VoutV == 0 {
+			// Take the voltage infer likes best for this family and package.
+			for _, cd := range res.Candidates {
+				if cd.Family == h.Family && cd.Package == h.Package {
+					h.VoutV = cd.VoutV
+					break
+				}
+			}
+		}
+		if h.Family.Adjustable() {
+			for _, cd := range res.Candidates {
+				if cd.Family == h.Family && cd.Package == h.Package {
+					h.VoutV = cd.VoutV
+					break
+				}
+			}
+		}
+		return h, 1, false, res, nil
+	}
+	lead := res.Candidates[0]
+	if res.NotInCatalog > lead.Probability {
+		return infer.Hypothesis{}, 0, true, res, inputError(fmt.Errorf("the evidence fits nothing in the catalog (not in the catalog %.0f %%, leader %s %.0f %%)", 100*res.NotInCatalog, lead.Label(), 100*lead.Probability),
+			"name the original with --original ID[:OUTLINE[:VOUT]]")
+	}
+	return lead.Hypothesis, lead.Probability, true, res, nil
+}
+
+func swapRun(o *swapOptions) error {
+	c, err := o.app.loadCatalog()
+	if err != nil {
+		return err
+	}
+	ev, err := loadEvidence(o.app, c, o.File)
+	if err != nil {
+		return err
+	}
+	orig, prob, fromInfer, _, err := resolveOriginal(o.app, c, ev, o.Original)
+	if err != nil {
+		return err
+	}
+	res, err := infer.Swap(c, ev, orig, prob, fromInfer, infer.SwapOptions{All: o.All})
+	if err != nil {
+		return inputError(fmt.Errorf("%s: %v", o.File, err))
+	}
+	out := o.app.IO.Out
+	switch o.Format {
+	case "json":
+		return writeJSON(out, swapJSONOf(res))
+	case "markdown":
+		writeSwapMarkdown(out, res, o.Details)
+	default:
+		writeSwapText(out, res, o.Details)
+	}
+	return nil
+}
+
+// swapJSON is the JSON contract of `whichreg swap` (issue #5).
+type swapJSON struct {
+	Original     originalJSON      `json:"original"`
+	Replacements []replacementJSON `json:"replacements"`
+	Assumptions  []string          `json:"assumptions"`
+	Conditions   infer.Conditions  `json:"conditions"`
+	Hidden       int               `json:"hidden"`
+}
+
+type originalJSON struct {
+	Family      string  `json:"family"`
+	Package     string  `json:"package"`
+	Vout        float64 `json:"vout"`
+	Probability float64 `json:"probability"`
+	FromInfer   bool    `json:"from_infer"`
+}
+
+type replacementJSON struct {
+	Family   string        `json:"family"`
+	Package  string        `json:"package"`
+	Vout     float64       `json:"vout"`
+	Verdict  string        `json:"verdict"`
+	Deciding string        `json:"deciding"`
+	Checks   []infer.Check `json:"checks"`
+	Install  []string      `json:"install"`
+}
+
+func swapJSONOf(res *infer.SwapResult) swapJSON {
+	j := swapJSON{
+		Original:    originalJSON{res.Original.Family.ID, res.Original.Package.Outline, signedVout(res.Original), round(res.Probability, 6), res.FromInfer},
+		Assumptions: res.Assumptions, Conditions: res.Conditions, Hidden: res.Hidden, Replacements: []replacementJSON{},
+	}
+	if j.Assumptions == nil {
+		j.Assumptions = []string{}
+	}
+	for _, r := range res.Replacements {
+		cs := make([]infer.Check, len(r.Checks))
+		for i, ch := range r.Checks {
+			ch.Margin = round(ch.Margin, 4)
+			cs[i] = ch
+		}
+		j.Replacements = append(j.Replacements, replacementJSON{r.Family.ID, r.Package.Outline, signedVout(r.Hypothesis), r.Verdict, r.Deciding, cs, r.Install})
+	}
+	return j
+}
+
+func originalLine(res *infer.SwapResult) string {
+	if res.FromInfer {
+		s := fmt.Sprintf("original: %s, infer's leader at %s", res.Original.Label(), pct(res.Probability))
+		if res.Probability < 0.6 {
+			s += " — below 60 %: identification is uncertain; make the suggested measurements or name it with --original"
+		}
+		return s
+	}
+	return fmt.Sprintf("original: %s (named with --original)", res.Original.Label())
+}
+
+func writeSwapText(w io.Writer, res *infer.SwapResult, details int) {
+	cd := res.Conditions
+	fmt.Fprintln(w, originalLine(res))
+	fmt.Fprintf(w, "circuit: %.2f V out, %.3g–%.3g A; input %.2f V at its lowest (%s), %.1f V at its highest (%s)\n",
+		cd.VoutV, cd.LoadMinA, cd.LoadMaxA, cd.TroughV, cd.TroughAt, cd.PeakV, cd.PeakAt)
+	fmt.Fprintln(w)
+	for i, r := range res.Replacements {
+		dec := ""
+		for _, ch := range r.Checks {
+			if ch.Check == r.Deciding {
+				dec = ch.Check + ": " + ch.Text
+			}
+		}
+		fmt.Fprintf(w, "%2d. %-26s %-11s %s\n", i+1, r.Label(), r.Verdict, dec)
+	}
+	if len(res.Replacements) == 0 {
+		fmt.Fprintln(w, "no candidate in the catalog")
+	}
+	if res.Hidden > 0 {
+		fmt.Fprintf(w, "(%d unsuitable candidates not shown; --all shows them)\n", res.Hidden)
+	}
+	for i, r := range res.Replacements {
+		if i >= details {
+			break
+		}
+		fmt.Fprintf(w, "\n%s — %s\n", r.Label(), r.Verdict)
+		for _, ch := range r.Checks {
+			fmt.Fprintf(w, "  %-4s %-9s %-24s limit %-22s margin %+6.2f  %s\n", ch.Status, ch.Check, ch.Value, ch.Limit, ch.Margin, ch.Text)
+		}
+		for _, in := range r.Install {
+			fmt.Fprintf(w, "  - %s\n", in)
+		}
+	}
+	if len(res.Assumptions) > 0 {
+		fmt.Fprintln(w, "\nAssumed:")
+		for _, a := range res.Assumptions {
+			fmt.Fprintf(w, "  - %s\n", a)
+		}
+	}
+	fmt.Fprintln(w, "\nSafety: unplug and discharge the filter capacitors before desoldering; tabs and heat sinks may be live or hot. Confirm against the maker's datasheet.")
+}
+
+func writeSwapMarkdown(w io.Writer, res *infer.SwapResult, details int) {
+	fmt.Fprintf(w, "# Replacements\n\n%s\n\n| # | candidate | verdict | deciding check |\n| ---: | --- | --- | --- |\n", mdEscape(originalLine(res)))
+	for i, r := range res.Replacements {
+		fmt.Fprintf(w, "| %d | %s | %s | %s |\n", i+1, r.Label(), r.Verdict, r.Deciding)
+	}
+	for i, r := range res.Replacements {
+		if i >= details {
+			break
+		}
+		fmt.Fprintf(w, "\n## %s — %s\n\n", r.Label(), r.Verdict)
+		writeCheckTable(w, r)
+	}
+}
+
+func writeCheckTable(w io.Writer, r infer.Replacement) {
+	fmt.Fprintln(w, "| check | value | limit | margin | status | why |\n| --- | --- | --- | ---: | --- | --- |")
+	for _, ch := range r.Checks {
+		fmt.Fprintf(w, "| %s | %s | %s | %+.2f | %s | %s |\n", ch.Check, mdEscape(ch.Value), mdEscape(ch.Limit), ch.Margin, ch.Status, mdEscape(ch.Text))
+	}
+}
