@@ -281,6 +281,9 @@ func checkReplacement(c *catalog.Catalog, ev *Evidence, orig, h Hypothesis, cd *
 	case o != nil && oo != nil && o.Leads == oo.Leads && math.Abs(o.PitchMM-oo.PitchMM) < 0.15 && o.SMD == oo.SMD:
 		sameHoles = true
 		add(Check{"outline", o.Name, oo.Name, 0.2, Warn, fmt.Sprintf("%s fits the holes of the %s but the body and mounting differ", o.Name, oo.Name)})
+	case o != nil && oo != nil && len(p.Terminals(o)) != len(op.Terminals(oo)):
+		add(Check{"outline", fmt.Sprintf("%s, %d terminals", o.Name, len(p.Terminals(o))), fmt.Sprintf("%s, %d terminals", oo.Name, len(op.Terminals(oo))), -1, Fail,
+			fmt.Sprintf("a %d-terminal %s has no place on a %d-terminal footprint without a new board", len(p.Terminals(o)), o.Name, len(op.Terminals(oo)))})
 	default:
 		add(Check{"outline", name(o), name(oo), 0, Warn, fmt.Sprintf("needs rework: a %s in place of a %s (adapter board or flying leads, and a new mounting)", name(o), name(oo))})
 		if oo != nil && oo.CaseTerminal && o != nil && !o.CaseTerminal {
