@@ -70,12 +70,18 @@ func ioError(err error, hints ...string) error    { return &exitError{exitIO, er
 // errPrinted reports that the command has already printed its diagnostics.
 var errPrinted = errors.New("already printed")
 
+// testOnlyNow, when set by the tests, replaces the clock (records are dated).
+var testOnlyNow func() time.Time
+
 // Main runs whichreg with os.Args and returns the exit code.
 func Main() int {
 	app := &App{
 		IO:        &IOStreams{In: os.Stdin, Out: os.Stdout, ErrOut: os.Stderr},
 		ConfigDir: os.UserConfigDir,
 		Now:       time.Now,
+	}
+	if testOnlyNow != nil {
+		app.Now = testOnlyNow
 	}
 	return run(app, os.Args[1:])
 }

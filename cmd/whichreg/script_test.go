@@ -1,0 +1,69 @@
+package main
+
+import (
+	"errors"
+	"flag"
+	"os"
+	"os/exec"
+	"path/filepath"
+	"strconv"
+	"testing"
+	"time"
+
+	"github.com/rogpeppe/go-internal/testscript"
+)
+
+var updateScripts = flag.Bool("update", false, "update the want sections of the testscript files")
+
+func TestMain(m *testing.M) {
+	testscript.Main(m, map[string]func(){
+		"whichreg": func() {
+			testOnlyNow = func() time.Time { return time.Date(2026, 3, 14, 9, 30, 0, 0, time.UTC) }
+			os.Exit(Main())
+		},
+	})
+}
+
+// TestScripts runs the end-to-end scripts in testdata/script. Each names its
+// command and case (<command>_<case>.txtar).
+func TestScripts(t *testing.T) {
+	root, err := filepath.Abs("../..")
+	if err != nil {
+		t.Fatal(err)
+	}
+	testscript.Run(t, testscript.Params{
+		Dir:                 "testdata/script",
+		RequireExplicitExec: true,
+		RequireUniqueNames:  true,
+		UpdateScripts:       *updateScripts,
+		Setup: func(env *testscript.Env) error {
+			env.Setenv("ROOT", root)
+			env.Setenv("HOME", filepath.Join(env.WorkDir, "home"))
+			env.Setenv("XDG_CONFIG_HOME", filepath.Join(env.WorkDir, "home", ".config"))
+			return nil
+		},
+		Cmds: map[string]func(ts *testscript.TestScript, neg bool, args []string){
+			// exits CODE PROGRAM ARGS... runs the program and checks its exit code.
+			"exits": func(ts *testscript.TestScript, neg bool, args []string) {
+				if len(args) < 2 {
+					ts.Fatalf("usage: exits CODE PROGRAM [ARGS...]")
+				}
+				want, err := strconv.Atoi(args[0])
+				if err != nil {
+					ts.Fatalf("exits: %v", err)
+				}
+				err = ts.Exec(args[1], args[2:]...)
+				got := 0
+				var ee *exec.ExitError
+				if errors.As(err, &ee) {
+					got = ee.ExitCode()
+				} else if err != nil {
+					ts.Fatalf("exits: %v", err)
+				}
+				if got != want {
+					ts.Fatalf("exit code %d, want %d", got, want)
+				}
+			},
+		},
+	})
+}
