@@ -1,0 +1,77 @@
+package main
+
+import (
+	"bytes"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+	"time"
+
+	"github.com/google/go-cmp/cmp"
+)
+
+func testApp() (*App, *bytes.Buffer, *bytes.Buffer) {
+	var out, errOut bytes.Buffer
+	return &App{
+		IO:        &IOStreams{Out: &out, ErrOut: &errOut},
+		ConfigDir: func() (string, error) { return "", nil },
+		Now:       func() time.Time { return time.Date(2026, 3, 14, 9, 30, 0, 0, time.UTC) },
+	}, &out, &errOut
+}
+
+// TestRecordGolden pins the example record kept under testdata/demo (the
+// Markdown and the JSON) and the swap JSON of the same scenario. Regenerate
+// with go test ./cmd/whichreg -update after a deliberate change (a catalog
+// change alters the catalog hash in the record).
+func TestRecordGolden(t *testing.T) {
+	demo := "../../testdata/demo/vending-lifted-ground.toml"
+	cases := []struct {
+		golden string
+		args   []string
+	}{
+		{"vending-lifted-ground.record.md", []string{"record", demo, "--choose", "78xx:TO-220"}},
+		{"vending-lifted-ground.record.json", []string{"record", demo, "--choose", "78xx:TO-220", "--format", "json"}},
+		{"vending-lifted-ground.swap.json", []string{"swap", demo, "--format", "json"}},
+		{"bench-supply-negative.infer.json", []string{"infer", "../../testdata/demo/bench-supply-negative.toml", "--format", "json", "--top", "3"}},
+	}
+	for _, tc := range cases {
+		t.Run(tc.golden, func(t *testing.T) {
+			app, out, errOut := testApp()
+			if code := run(app, tc.args); code != 0 {
+				t.Fatalf("exit %d: %s", code, errOut)
+			}
+			// The evidence path is relative to this package; keep the golden repository-relative.
+			got := strings.ReplaceAll(out.String(), "../../testdata/", "testdata/")
+			path := filepath.Join("../../testdata/demo", tc.golden)
+			if *updateScripts {
+				if err := os.WriteFile(path, []byte(got), 0o644); err != nil {
+					t.Fatal(err)
+				}
+				return
+			}
+			want, err := os.ReadFile(path)
+			if err != nil {
+				t.Fatalf("missing golden (go test ./cmd/whichreg -update): %v", err)
+			}
+			if diff := cmp.Diff(string(want), got); diff != "" {
+				t.Errorf("%s mismatch (-want +got):\n%s", tc.golden, diff)
+			}
+		})
+	}
+}
+
+// TestSwapJSONFields pins the contract's field names (issue #5), written
+// out here rather than taken from the structs.
+func TestSwapJSONFields(t *testing.T) {
+	app, out, _ := testApp()
+	if code := run(app, []string{"swap", "../../testdata/demo/bench-supply-negative.toml", "--format", "json"}); code != 0 {
+		t.Fatalf("exit %d", code)
+	}
+	for _, field := range []string{`"original"`, `"family"`, `"package"`, `"vout"`, `"probability"`, `"replacements"`, `"verdict"`,
+		`"checks"`, `"check"`, `"value"`, `"limit"`, `"margin"`, `"status"`, `"text"`, `"install"`, `"assumptions"`} {
+		if !strings.Contains(out.String(), field) {
+			t.Errorf("swap JSON lacks %s", field)
+		}
+	}
+}
