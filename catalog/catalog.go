@@ -177,7 +177,7 @@ type Family struct {
 // position is where an entry stands in its file, for lint messages.
 type position struct {
 	file string
-	ix   tomlpos.Index
+	ix   tomlpos.Locator
 	path string // "family[3]"
 }
 

@@ -173,9 +173,15 @@ func (f *Family) Expand() []Expansion {
 // patterns, considering only expansions for vout when vout > 0. ok is false
 // when no pattern is compatible.
 func (f *Family) MatchMarking(query string, vout float64) (Expansion, bool) {
-	q := NormalizeMarking(query)
+	e, _, ok := BestMatch(f.Expand(), NormalizeMarking(query), vout)
+	return e, ok
+}
+
+// BestMatch is [Family.MatchMarking] on expansions already made and a
+// normalised query; it also returns the [Agreement] of the match.
+func BestMatch(exps []Expansion, q string, vout float64) (Expansion, int, bool) {
 	best, bestN, found := Expansion{}, 0, false
-	for _, e := range f.Expand() {
+	for _, e := range exps {
 		if vout > 0 && e.VoutV > 0 && abs(e.VoutV-vout) > 1e-6 {
 			continue
 		}
@@ -183,7 +189,7 @@ func (f *Family) MatchMarking(query string, vout float64) (Expansion, bool) {
 			best, bestN, found = e, n, true
 		}
 	}
-	return best, found
+	return best, bestN, found
 }
 
 func abs(x float64) float64 {

@@ -6,6 +6,7 @@ import (
 	"path"
 	"sort"
 	"strings"
+	"sync"
 
 	"github.com/whichreg/whichreg/internal/tomlpos"
 )
@@ -63,7 +64,8 @@ func Load(name string, data []byte) (*File, ErrorList) {
 	return f, errs
 }
 
-// LoadFS loads every *.toml file under dir in fsys, in name order.
+// LoadFS loads every *.toml file under dir in fsys, in name order. It is
+// safe for concurrent use.
 // Origins are written as prefix + file name (e.g. "builtin:fixed.toml").
 func LoadFS(fsys fs.FS, dir, prefix string) ([]*File, ErrorList) {
 	names, err := fs.Glob(fsys, path.Join(dir, "*.toml"))
@@ -73,18 +75,32 @@ func LoadFS(fsys fs.FS, dir, prefix string) ([]*File, ErrorList) {
 		return nil, errs
 	}
 	sort.Strings(names)
-	var files []*File
-	for _, n := range names {
-		data, err := fs.ReadFile(fsys, n)
-		if err != nil {
-			errs = append(errs, &Error{File: prefix + n, Err: err})
-			continue
-		}
-		f, e := Load(prefix+path.Base(n), data)
-		errs = append(errs, e...)
-		files = append(files, f)
+	// Decode the files concurrently (TOML decoding dominates start-up); the
+	// results keep name order.
+	files := make([]*File, len(names))
+	perFile := make([]ErrorList, len(names))
+	var wg sync.WaitGroup
+	for i, n := range names {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			data, err := fs.ReadFile(fsys, n)
+			if err != nil {
+				perFile[i] = ErrorList{&Error{File: prefix + n, Err: err}}
+				return
+			}
+			files[i], perFile[i] = Load(prefix+path.Base(n), data)
+		}()
 	}
-	return files, errs
+	wg.Wait()
+	var out []*File
+	for i := range names {
+		errs = append(errs, perFile[i]...)
+		if files[i] != nil {
+			out = append(out, files[i])
+		}
+	}
+	return out, errs
 }
 
 // Merge builds a catalog from files in order: an outline with the same name
@@ -92,34 +108,30 @@ func LoadFS(fsys fs.FS, dir, prefix string) ([]*File, ErrorList) {
 // it, and the replacement records the origin it replaced.
 func Merge(files ...*File) *Catalog {
 	c := &Catalog{}
+	outlineAt := map[string]int{}
+	familyAt := map[string]int{}
 	for _, f := range files {
 		if f == nil {
 			continue
 		}
 		for _, o := range f.Outlines {
-			replaced := false
-			for i := range c.Outlines {
-				if strings.EqualFold(c.Outlines[i].Name, o.Name) {
-					c.Outlines[i] = o
-					replaced = true
-				}
+			k := strings.ToLower(o.Name)
+			if i, ok := outlineAt[k]; ok {
+				c.Outlines[i] = o
+				continue
 			}
-			if !replaced {
-				c.Outlines = append(c.Outlines, o)
-			}
+			outlineAt[k] = len(c.Outlines)
+			c.Outlines = append(c.Outlines, o)
 		}
 		for _, fa := range f.Families {
-			replaced := false
-			for i := range c.Families {
-				if strings.EqualFold(c.Families[i].ID, fa.ID) {
-					fa.Replaces = c.Families[i].Origin
-					c.Families[i] = fa
-					replaced = true
-				}
+			k := strings.ToLower(fa.ID)
+			if i, ok := familyAt[k]; ok {
+				fa.Replaces = c.Families[i].Origin
+				c.Families[i] = fa
+				continue
 			}
-			if !replaced {
-				c.Families = append(c.Families, fa)
-			}
+			familyAt[k] = len(c.Families)
+			c.Families = append(c.Families, fa)
 		}
 	}
 	return c

@@ -246,25 +246,25 @@ func oneOf(v string, set []string) bool {
 	return false
 }
 
-func volts(errs *tomlpos.ErrorList, file string, ix tomlpos.Index, key string, v Volts) {
+func volts(errs *tomlpos.ErrorList, file string, ix tomlpos.Locator, key string, v Volts) {
 	if v.Set && (v.V < -10000 || v.V > 10000) {
 		errs.Add(file, ix, key, "%g V is outside ±10 kV; give volts to board ground", v.V)
 	}
 }
 
-func positive(errs *tomlpos.ErrorList, file string, ix tomlpos.Index, key string, set bool, v, lo, hi float64, unit string) {
+func positive(errs *tomlpos.ErrorList, file string, ix tomlpos.Locator, key string, set bool, v, lo, hi float64, unit string) {
 	if set && (v < lo || v > hi) {
 		errs.Add(file, ix, key, "%g %s is outside %g to %g %s", v, unit, lo, hi, unit)
 	}
 }
 
-func nonNeg(errs *tomlpos.ErrorList, file string, ix tomlpos.Index, key string, set bool, v, hi float64, unit string) {
+func nonNeg(errs *tomlpos.ErrorList, file string, ix tomlpos.Locator, key string, set bool, v, hi float64, unit string) {
 	if set && (v < 0 || v > hi) {
 		errs.Add(file, ix, key, "%g %s is impossible (0 to %g %s)", v, unit, hi, unit)
 	}
 }
 
-func fractionRange(errs *tomlpos.ErrorList, file string, ix tomlpos.Index, key string, f Fraction, hi float64) {
+func fractionRange(errs *tomlpos.ErrorList, file string, ix tomlpos.Locator, key string, f Fraction, hi float64) {
 	if f.Set && (f.V < 0 || f.V > hi) {
 		errs.Add(file, ix, key, "%g is not a fraction from 0 to %g (write 0.10 for 10 %%)", f.V, hi)
 	}

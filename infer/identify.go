@@ -89,6 +89,10 @@ type Result struct {
 type Options struct {
 	// NextCount is how many next measurements to return (3 if zero).
 	NextCount int
+	// Explain is how many leading candidates get the text of their reasons
+	// (0 = all). Every candidate always has its reasons' weights, so the
+	// score is the same either way; the text costs time.
+	Explain int
 }
 
 // Probability constants of the likelihoods. They are judgement, not
@@ -130,8 +134,24 @@ type opPoint struct {
 	peakFrom    string
 	assumptions []string
 	fuzzyHit    map[string]bool
-	marking     string
+	marking     string // normalised
 	legible     bool
+	nLegible    int // legible characters of the marking
+	matches     map[markKey]markMatch
+	expansions  map[*catalog.Family][]catalog.Expansion
+	text        bool // format reason texts
+}
+
+// markKey and markMatch cache the marking match of a family at a voltage.
+type markKey struct {
+	f    *catalog.Family
+	vout float64
+}
+
+type markMatch struct {
+	e  catalog.Expansion
+	n  int
+	ok bool
 }
 
 // Identify ranks the catalog's hypotheses for the evidence.
@@ -143,6 +163,7 @@ func Identify(c *catalog.Catalog, ev *Evidence, opts Options) (*Result, error) {
 	if err != nil {
 		return nil, err
 	}
+	op.text = opts.Explain == 0
 	var hyps []Hypothesis
 	for _, f := range c.Sorted() {
 		for i := range f.Packages {
@@ -166,7 +187,7 @@ func Identify(c *catalog.Catalog, ev *Evidence, opts Options) (*Result, error) {
 			h.VoutV = adjustableVout(h, ev)
 			hyps[i] = h
 		}
-		rs := priorReasons(h, ev, c)
+		rs := priorReasons(h, ev, c, op.text)
 		prior := 0.0
 		for _, r := range rs {
 			prior += r.Weight
@@ -198,12 +219,32 @@ func Identify(c *catalog.Catalog, ev *Evidence, opts Options) (*Result, error) {
 		cands[i].Probability = math.Exp(cands[i].Score-top) / z
 	}
 	res.NotInCatalog = math.Exp(res.NotInCatalogScore-top) / z
-	sort.SliceStable(cands, func(i, j int) bool {
+	order := make([]int, len(cands))
+	keys := make([]string, len(cands))
+	for i := range cands {
+		order[i] = i
+		keys[i] = cands[i].Label()
+	}
+	sort.SliceStable(order, func(a, b int) bool {
+		i, j := order[a], order[b]
 		if cands[i].Probability != cands[j].Probability {
 			return cands[i].Probability > cands[j].Probability
 		}
-		return cands[i].Label() < cands[j].Label()
+		return keys[i] < keys[j]
 	})
+	sorted := make([]Candidate, len(cands))
+	for k, i := range order {
+		sorted[k] = cands[i]
+	}
+	cands = sorted
+	// Texts for the leaders (the conflicts read the first five).
+	if !op.text {
+		op.text = true
+		for i := 0; i < min(len(cands), max(opts.Explain, 5)); i++ {
+			cd := &cands[i]
+			cd.Reasons = append(priorReasons(cd.Hypothesis, ev, c, true), likelihoods(cd.Hypothesis, ev, op)...)
+		}
+	}
 	res.Candidates = cands
 	res.Conflicts = conflicts(ev, res)
 	res.Next = nextMeasurements(ev, res, opts.NextCount)
@@ -212,8 +253,9 @@ func Identify(c *catalog.Catalog, ev *Evidence, opts Options) (*Result, error) {
 
 // operatingPoint works out the input peak from the [input] table.
 func operatingPoint(c *catalog.Catalog, ev *Evidence) (*opPoint, error) {
-	op := &opPoint{marking: catalog.NormalizeMarking(ev.Marking)}
+	op := &opPoint{marking: catalog.NormalizeMarking(ev.Marking), matches: map[markKey]markMatch{}, expansions: map[*catalog.Family][]catalog.Expansion{}}
 	op.legible = catalog.Legible(op.marking)
+	op.nLegible = len(strings.NewReplacer("?", "", "*", "").Replace(op.marking))
 	if op.legible {
 		op.fuzzyHit = map[string]bool{}
 		for _, h := range catalog.Find(c, ev.Marking) {
@@ -232,33 +274,41 @@ func operatingPoint(c *catalog.Catalog, ev *Evidence) (*opPoint, error) {
 		op.peakFrom = "the DC supply"
 		return op, nil
 	}
-	cr, ok, err := rectifierCorners(ev, &op.assumptions)
+	// Identification needs only the highest input: high mains, light load.
+	r, light, ok, err := rectifierModel(ev, &op.assumptions)
 	if err != nil {
 		return nil, err
 	}
 	if ok {
-		op.peakV = cr.WorstPeak.Result.PeakV
-		op.peakFrom = "the rectifier model at " + cr.WorstPeak.Name
+		r.VrmsV *= 1 + in.MainsTolerance.Or(0.10)
+		r.CapF *= 0.8 // the capacitor's −20 % corner, as swap's worst peak
+		r.Load = circuit.Load{Amps: light}
+		res, err := r.Solve()
+		if err != nil {
+			return nil, fmt.Errorf("%s: [input]: %v", ev.File, err)
+		}
+		op.peakV = res.PeakV
+		op.peakFrom = "the rectifier model at high mains, light load, low C"
 	}
 	return op, nil
 }
 
-// rectifierCorners solves the [input] rectifier at its corners when the
-// evidence describes it. ok is false when it does not.
-func rectifierCorners(ev *Evidence, assumptions *[]string) (circuit.CornerResult, bool, error) {
+// rectifierModel builds the [input] rectifier at nominal mains and full
+// load, when the evidence describes it, and returns the light load too.
+// ok is false when it does not describe it.
+func rectifierModel(ev *Evidence, assumptions *[]string) (r circuit.Rectifier, light float64, ok bool, err error) {
 	in := ev.Input
 	if in == nil || in.Rectifier == "" || in.Rectifier == "dc" || !in.SecondaryVrms.Set || !in.FilterUF.Set {
-		return circuit.CornerResult{}, false, nil
+		return r, 0, false, nil
 	}
 	top, err := circuit.ParseTopology(in.Rectifier)
 	if err != nil {
-		return circuit.CornerResult{}, false, err
+		return r, 0, false, err
 	}
 	load := 0.0
-	minLoad := 0.0
 	if ev.Output != nil {
 		load = ev.Output.Amps.V
-		minLoad = ev.Output.MinAmps.V
+		light = ev.Output.MinAmps.V
 	}
 	if load <= 0 {
 		load = 0.1
@@ -277,16 +327,26 @@ func rectifierCorners(ev *Evidence, assumptions *[]string) (circuit.CornerResult
 	}
 	emf, rs, err := circuit.FromRegulation(top, in.SecondaryVrms.V, reg, load)
 	if err != nil {
-		return circuit.CornerResult{}, false, err
+		return r, 0, false, err
 	}
-	r := circuit.Rectifier{Topology: top, VrmsV: emf, Hz: hz, CapF: in.FilterUF.V * 1e-6, ESROhm: 0.05, SourceOhm: rs}
 	*assumptions = append(*assumptions, "filter capacitor ESR 0.05 Ω and 1N4007-class diodes assumed")
-	cr, err := r.Corners(circuit.CornerSpec{MainsTol: in.MainsTolerance.Or(0.10), CapTol: 0.20,
-		LoadMin: circuit.Load{Amps: minLoad}, LoadMax: circuit.Load{Amps: load}})
-	if err != nil {
-		return circuit.CornerResult{}, false, fmt.Errorf("%s: [input]: %v", ev.File, err)
+	r = circuit.Rectifier{Topology: top, VrmsV: emf, Hz: hz, CapF: in.FilterUF.V * 1e-6, ESROhm: 0.05, SourceOhm: rs, Load: circuit.Load{Amps: load}}
+	return r, light, true, nil
+}
+
+// rectifierCorners solves the [input] rectifier at its corners when the
+// evidence describes it. ok is false when it does not.
+func rectifierCorners(ev *Evidence, assumptions *[]string) (circuit.CornerResult, *circuit.Rectifier, bool, error) {
+	r, light, ok, err := rectifierModel(ev, assumptions)
+	if err != nil || !ok {
+		return circuit.CornerResult{}, nil, false, err
 	}
-	return cr, true, nil
+	cr, err := r.Corners(circuit.CornerSpec{MainsTol: ev.Input.MainsTolerance.Or(0.10), CapTol: 0.20,
+		LoadMin: circuit.Load{Amps: light}, LoadMax: r.Load})
+	if err != nil {
+		return circuit.CornerResult{}, nil, false, fmt.Errorf("%s: [input]: %v", ev.File, err)
+	}
+	return cr, &r, true, nil
 }
 
 // terminalVolts maps the measured voltages onto the hypothesis's terminal
@@ -349,31 +409,41 @@ func adjustableVout(h Hypothesis, ev *Evidence) float64 {
 // geometric scale (each step of the 1–5 scale three times as common; common
 // practice, no source), shared among its packages by outline commonness and
 // among its voltages by [voltageWeight], and the era.
-func priorReasons(h Hypothesis, ev *Evidence, c *catalog.Catalog) []Reason {
+func priorReasons(h Hypothesis, ev *Evidence, c *catalog.Catalog, text bool) []Reason {
 	f := h.Family
 	nv := 1
 	if !f.Adjustable() {
 		nv = len(f.OutputsV)
 	}
-	rs := []Reason{{"prior", float64(f.Commonness-1) * math.Log(3), fmt.Sprintf("commonness %d of 5", f.Commonness)}}
+	say := func(format string, args ...any) string {
+		if !text {
+			return ""
+		}
+		return fmt.Sprintf(format, args...)
+	}
+	rs := []Reason{{"prior", float64(f.Commonness-1) * math.Log(3), say("commonness %d of 5", f.Commonness)}}
 	total := 0.0
 	for _, p := range f.Packages {
 		total += c.Outline(p.Outline).Weight()
 	}
 	share := h.Outline.Weight() / total
-	text := fmt.Sprintf("%s is %.0f %% of %s's packages", h.Package.Outline, 100*share, f.ID)
+	pkgShare := share
+	vs := 1.0
 	if nv > 1 {
 		sum := 0.0
 		for _, v := range f.OutputsV {
 			sum += voltageWeight(v)
 		}
-		vs := voltageWeight(h.VoutV) / sum
+		vs = voltageWeight(h.VoutV) / sum
 		share *= vs
-		text += fmt.Sprintf("; %s V is %.0f %% of its voltages", trimFloat(h.VoutV), 100*vs)
 	}
-	rs = append(rs, Reason{"prior", math.Log(share), text})
+	t := say("%s is %.0f %% of %s's packages", h.Package.Outline, 100*pkgShare, f.ID)
+	if nv > 1 && text {
+		t += say("; %s V is %.0f %% of its voltages", trimFloat(h.VoutV), 100*vs)
+	}
+	rs = append(rs, Reason{"prior", math.Log(share), t})
 	if ev.Year > 0 && f.Since > ev.Year {
-		rs = append(rs, Reason{"year", math.Log(0.02), fmt.Sprintf("%s appeared in %d, after the equipment was made (%d)", f.ID, f.Since, ev.Year)})
+		rs = append(rs, Reason{"year", math.Log(0.02), say("%s appeared in %d, after the equipment was made (%d)", f.ID, f.Since, ev.Year)})
 	}
 	return rs
 }
@@ -383,7 +453,11 @@ func priorReasons(h Hypothesis, ev *Evidence, c *catalog.Catalog) []Reason {
 func likelihoods(h Hypothesis, ev *Evidence, op *opPoint) []Reason {
 	var rs []Reason
 	add := func(key string, p, flat float64, format string, args ...any) {
-		rs = append(rs, Reason{key, math.Log(p / flat), fmt.Sprintf(format, args...)})
+		r := Reason{Evidence: key, Weight: math.Log(p / flat)}
+		if op.text {
+			r.Text = fmt.Sprintf(format, args...)
+		}
+		rs = append(rs, r)
 	}
 	o := h.Outline
 	f := h.Family
@@ -614,10 +688,19 @@ func likelihoods(h Hypothesis, ev *Evidence, op *opPoint) []Reason {
 	// character read by chance matches about one time in four among the
 	// characters regulator markings use; common practice, no source).
 	if op.legible {
-		legible := len(strings.NewReplacer("?", "", "*", "").Replace(op.marking))
-		if e, ok := f.MatchMarking(ev.Marking, h.VoutV); ok {
-			n, _ := catalog.Agreement(e.Expanded, op.marking)
-			add("marking", 0.9, 0.9*math.Pow(4, -float64(n)), "marking %q fits %s (%d of %d legible characters confirmed)", ev.Marking, e.Expanded, n, legible)
+		k := markKey{f, h.VoutV}
+		m, seen := op.matches[k]
+		if !seen {
+			exps, have := op.expansions[f]
+			if !have {
+				exps = f.Expand()
+				op.expansions[f] = exps
+			}
+			m.e, m.n, m.ok = catalog.BestMatch(exps, op.marking, h.VoutV)
+			op.matches[k] = m
+		}
+		if e, n, ok := m.e, m.n, m.ok; ok {
+			add("marking", 0.9, 0.9*math.Pow(4, -float64(n)), "marking %q fits %s (%d of %d legible characters confirmed)", ev.Marking, e.Expanded, n, op.nLegible)
 		} else if op.fuzzyHit[f.ID] {
 			add("marking", 0.05, 0.1, "marking %q: the legible characters appear in %s's markings, but no pattern fits this variant", ev.Marking, f.ID)
 		} else {

@@ -306,7 +306,19 @@ func FuzzLoadEvidence(f *testing.F) {
 	})
 }
 
+// BenchmarkIdentify: the text output's path (reasons written for the leaders).
 func BenchmarkIdentify(b *testing.B) {
+	c := builtinCatalog(b)
+	ev := load(b, c, "../testdata/demo/bench-supply-negative.toml")
+	for b.Loop() {
+		if _, err := infer.Identify(c, ev, infer.Options{Explain: 8}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// BenchmarkIdentifyAllReasons: the JSON path (every candidate's reasons written).
+func BenchmarkIdentifyAllReasons(b *testing.B) {
 	c := builtinCatalog(b)
 	ev := load(b, c, "../testdata/demo/bench-supply-negative.toml")
 	for b.Loop() {

@@ -135,7 +135,7 @@ func conditions(ev *Evidence, orig Hypothesis) (Conditions, []string, error) {
 		tol = ev.Input.MainsTolerance.V
 	}
 	var cornerAs []string
-	cr, ok, err := rectifierCorners(ev, &cornerAs)
+	cr, rc, ok, err := rectifierCorners(ev, &cornerAs)
 	if err != nil {
 		return cd, nil, err
 	}
@@ -158,7 +158,6 @@ func conditions(ev *Evidence, orig Hypothesis) (Conditions, []string, error) {
 		if cd.HotInV == 0 {
 			cd.HotInV = cd.PeakV
 		}
-		rc := nominalRectifier(ev, cd.LoadMaxA)
 		cd.Rectifier = rc
 	case haveIn:
 		v := math.Abs(vin)
@@ -176,19 +175,6 @@ func conditions(ev *Evidence, orig Hypothesis) (Conditions, []string, error) {
 		}
 	}
 	return cd, as, nil
-}
-
-func nominalRectifier(ev *Evidence, load float64) *circuit.Rectifier {
-	in := ev.Input
-	top, err := circuit.ParseTopology(in.Rectifier)
-	if err != nil {
-		return nil
-	}
-	emf, rs, err := circuit.FromRegulation(top, in.SecondaryVrms.V, in.SecondaryRegulation.Or(0.10), math.Max(load, 0.1))
-	if err != nil {
-		return nil
-	}
-	return &circuit.Rectifier{Topology: top, VrmsV: emf, Hz: in.MainsHz.Or(50), CapF: in.FilterUF.V * 1e-6, ESROhm: 0.05, SourceOhm: rs, Load: circuit.Load{Amps: load}}
 }
 
 // Swap checks every current-production candidate against the circuit of

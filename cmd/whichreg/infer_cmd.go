@@ -59,7 +59,11 @@ func inferRun(o *inferOptions) error {
 	if err != nil {
 		return err
 	}
-	res, err := infer.Identify(c, ev, infer.Options{})
+	explain := 0 // JSON: every candidate's reasons
+	if o.Format != "json" {
+		explain = max(o.Why, topOr(o.Top, 8))
+	}
+	res, err := infer.Identify(c, ev, infer.Options{Explain: explain})
 	if err != nil {
 		return inputError(err)
 	}

@@ -57,10 +57,42 @@ func (e *Error) Unwrap() error { return e.Err }
 // ErrorList is a list of positioned errors. The zero value is an empty list.
 type ErrorList []*Error
 
-// Add appends an error at the place of key in ix (or the nearest enclosing
-// table when the key itself is not written).
-func (l *ErrorList) Add(file string, ix Index, key string, format string, args ...any) {
-	ent := ix.Nearest(key)
+// Locator finds where a key is written; [Index] and [*Lazy] are Locators.
+type Locator interface {
+	Nearest(path string) Entry
+}
+
+var (
+	_ Locator = Index(nil)
+	_ Locator = (*Lazy)(nil)
+)
+
+// Lazy is the index of a document, built the first time it is asked for:
+// positions are only needed when there is something to report.
+type Lazy struct {
+	data []byte
+	ix   Index
+	done bool
+}
+
+// NewLazy returns a Lazy index of data.
+func NewLazy(data []byte) *Lazy { return &Lazy{data: data} }
+
+// Index returns the document's index, scanning it on first use.
+func (l *Lazy) Index() Index {
+	if !l.done {
+		l.ix, l.done = Scan(l.data), true
+	}
+	return l.ix
+}
+
+// Nearest is [Index.Nearest] on the document's index.
+func (l *Lazy) Nearest(path string) Entry { return l.Index().Nearest(path) }
+
+// Add appends an error at the place of key (or the nearest enclosing table
+// when the key itself is not written).
+func (l *ErrorList) Add(file string, loc Locator, key string, format string, args ...any) {
+	ent := loc.Nearest(key)
 	*l = append(*l, &Error{File: file, Line: ent.Line, Col: ent.Col, Key: key, Err: fmt.Errorf(format, args...)})
 }
 
@@ -102,18 +134,18 @@ var typeErrRE = regexp.MustCompile(`^toml: (?:line (\d+) )?\(last key "([^"]*)"\
 // Decode decodes the TOML document data strictly into v: syntax errors, type
 // errors and every key that v has no field for are returned as positioned
 // errors naming file. hint is added to the message of an unknown key (for
-// example, where to find the list of known keys). The returned Index locates
-// the document's keys for later checks. ok is false when v could not be
-// decoded (a syntax or type error): its contents are then partial and must
-// not be used.
-func Decode(file string, data []byte, v any, hint string) (ix Index, errs ErrorList, ok bool) {
+// example, where to find the list of known keys). The returned index locates
+// the document's keys for later checks; it scans the document only when
+// asked. ok is false when v could not be decoded (a syntax or type error):
+// its contents are then partial and must not be used.
+func Decode(file string, data []byte, v any, hint string) (lz *Lazy, errs ErrorList, ok bool) {
 	if !utf8.Valid(data) {
 		line := 1 + strings.Count(string(data[:invalidAt(data)]), "\n")
 		errs = append(errs, &Error{File: file, Line: line, Err: errors.New("the file is not UTF-8 text (is it the right file?)")})
 		return nil, errs, false
 	}
 	md, err := toml.Decode(string(data), v)
-	ix = Scan(data)
+	lz = NewLazy(data)
 	if err != nil {
 		var perr toml.ParseError
 		if errors.As(err, &perr) {
@@ -122,22 +154,22 @@ func Decode(file string, data []byte, v any, hint string) (ix Index, errs ErrorL
 				msg += " (" + strings.TrimSpace(strings.SplitN(perr.Usage, "\n", 2)[0]) + ")"
 			}
 			errs = append(errs, &Error{File: file, Line: perr.Position.Line, Col: perr.Position.Col, Key: perr.LastKey, Err: errors.New(msg)})
-			return ix, errs, false
+			return lz, errs, false
 		}
 		if m := typeErrRE.FindStringSubmatch(err.Error()); m != nil {
 			line, _ := strconv.Atoi(m[1])
 			e := &Error{File: file, Line: line, Key: m[2], Err: errors.New(m[3])}
-			for _, ent := range ix {
+			for _, ent := range lz.Index() {
 				if ent.Stripped == m[2] && (line == 0 || ent.Line == line) {
 					e.Line, e.Col, e.Key = ent.Line, ent.Col, ent.Path
 					break
 				}
 			}
 			errs = append(errs, e)
-			return ix, errs, false
+			return lz, errs, false
 		}
 		errs = append(errs, &Error{File: file, Err: errors.New(strings.TrimPrefix(err.Error(), "toml: "))})
-		return ix, errs, false
+		return lz, errs, false
 	}
 	seen := map[string]bool{}
 	for _, k := range md.Undecoded() {
@@ -146,7 +178,7 @@ func Decode(file string, data []byte, v any, hint string) (ix Index, errs ErrorL
 			continue
 		}
 		seen[s] = true
-		ents := ix.StrippedMatches(s)
+		ents := lz.Index().StrippedMatches(s)
 		msg := fmt.Sprintf("unknown key %q", k[len(k)-1])
 		if hint != "" {
 			msg += "; " + hint
@@ -162,7 +194,7 @@ func Decode(file string, data []byte, v any, hint string) (ix Index, errs ErrorL
 	// A table whose own key is unknown lists its sub-keys too; keep the table.
 	errs = dropNested(errs)
 	errs.Sort()
-	return ix, errs, true
+	return lz, errs, true
 }
 
 func dropNested(l ErrorList) ErrorList {
