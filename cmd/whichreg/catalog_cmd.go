@@ -3,7 +3,6 @@ package main
 import (
 	"fmt"
 	"io"
-	"os"
 	"strings"
 	"text/tabwriter"
 
@@ -383,9 +382,9 @@ func catalogCheckRun(opts *catalogCheckOptions) error {
 		names = opts.app.catalogSources()
 	}
 	for _, n := range names {
-		data, err := os.ReadFile(n)
+		data, err := readLimited(n, "catalog", maxCatalogBytes)
 		if err != nil {
-			return ioError(fmt.Errorf("reading catalog: %v", err))
+			return err
 		}
 		f, e := catalog.Load(n, data)
 		errs = append(errs, e...)

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"io/fs"
 	"os"
+	"strings"
 
 	"github.com/spf13/cobra"
 
@@ -35,17 +36,41 @@ func newEvidenceCmd(app *App) *cobra.Command {
 	return cmd
 }
 
-// loadEvidence reads and checks an evidence file.
-func loadEvidence(app *App, c *catalog.Catalog, file string) (*infer.Evidence, error) {
+// readLimited reads a file of at most limit bytes. A larger file is invalid
+// input (it is not the kind of file wanted); a failure to read is an I/O error.
+func readLimited(file, what string, limit int64) ([]byte, error) {
+	st, err := os.Stat(file)
+	if err != nil {
+		return nil, ioError(fmt.Errorf("reading %s: %w", what, err))
+	}
+	if st.IsDir() {
+		return nil, inputError(fmt.Errorf("%s is a directory, not %s file", file, article(what)))
+	}
+	if st.Size() > limit {
+		return nil, inputError(fmt.Errorf("%s: %d bytes is far too large for %s file (at most %d MiB); is it the right file?", file, st.Size(), article(what), limit>>20))
+	}
 	data, err := os.ReadFile(file)
 	if err != nil {
-		if errors.Is(err, fs.ErrNotExist) {
-			return nil, ioError(fmt.Errorf("reading evidence: %v", err), "'whichreg evidence init FILE' writes a template to fill in")
-		}
-		return nil, ioError(fmt.Errorf("reading evidence: %v", err))
+		return nil, ioError(fmt.Errorf("reading %s: %w", what, err))
 	}
-	if len(data) > 1<<20 {
-		return nil, inputError(fmt.Errorf("%s: %d bytes is far too large for an evidence file (at most 1 MiB); is it the right file?", file, len(data)))
+	return data, nil
+}
+
+func article(w string) string {
+	if strings.ContainsAny(w[:1], "aeiou") {
+		return "an " + w
+	}
+	return "a " + w
+}
+
+// loadEvidence reads and checks an evidence file.
+func loadEvidence(app *App, c *catalog.Catalog, file string) (*infer.Evidence, error) {
+	data, err := readLimited(file, "evidence", 1<<20)
+	if err != nil {
+		if errors.Is(err, fs.ErrNotExist) {
+			return nil, ioError(err, "'whichreg evidence init FILE' writes a template to fill in")
+		}
+		return nil, err
 	}
 	ev, err := infer.LoadEvidence(file, data, c)
 	if err != nil {

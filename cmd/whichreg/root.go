@@ -180,6 +180,9 @@ written into every record.`,
 	return root
 }
 
+// maxCatalogBytes bounds a user catalog file (10 000 families take about 4 MB).
+const maxCatalogBytes = 32 << 20
+
 // catalogSources lists the user catalog files in the order they are merged:
 // the config directory's files (sorted), then --catalog flags.
 func (app *App) catalogSources() []string {
@@ -198,9 +201,9 @@ func (app *App) catalogSources() []string {
 func (app *App) loadCatalog() (*catalog.Catalog, error) {
 	files, errs := builtin.Files()
 	for _, name := range app.catalogSources() {
-		data, err := os.ReadFile(name)
+		data, err := readLimited(name, "catalog", maxCatalogBytes)
 		if err != nil {
-			return nil, ioError(fmt.Errorf("reading catalog: %v", err))
+			return nil, err
 		}
 		f, e := catalog.Load(name, data)
 		errs = append(errs, e...)

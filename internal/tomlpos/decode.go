@@ -3,6 +3,7 @@ package tomlpos
 import (
 	"errors"
 	"fmt"
+	"reflect"
 	"regexp"
 	"sort"
 	"strconv"
@@ -171,6 +172,25 @@ func Decode(file string, data []byte, v any, hint string) (lz *Lazy, errs ErrorL
 		errs = append(errs, &Error{File: file, Err: errors.New(strings.TrimPrefix(err.Error(), "toml: "))})
 		return lz, errs, false
 	}
+	// The TOML library accepts a plain value where a table belongs (a map
+	// field given "pins = 3" decodes to nothing); say so instead.
+	for _, k := range md.Keys() {
+		t := destType(reflect.TypeOf(v), k)
+		if t == nil || t.Implements(unmarshalerType) || reflect.PointerTo(t).Implements(unmarshalerType) {
+			continue
+		}
+		if t.Kind() != reflect.Struct && t.Kind() != reflect.Map {
+			continue
+		}
+		if typ := md.Type(k...); typ != "Hash" && typ != "ArrayHash" {
+			ent := lz.Index().Nearest(k.String())
+			errs = append(errs, &Error{File: file, Line: ent.Line, Col: ent.Col, Key: k.String(),
+				Err: fmt.Errorf("%q must be a table ([%s] with keys below it), not %s", k.String(), k.String(), withArticle(strings.ToLower(typ)))})
+		}
+	}
+	if len(errs) > 0 {
+		return lz, errs, false
+	}
 	seen := map[string]bool{}
 	for _, k := range md.Undecoded() {
 		s := k.String()
@@ -179,7 +199,16 @@ func Decode(file string, data []byte, v any, hint string) (lz *Lazy, errs ErrorL
 		}
 		seen[s] = true
 		ents := lz.Index().StrippedMatches(s)
-		msg := fmt.Sprintf("unknown key %q", k[len(k)-1])
+		// Name the first part of the path the destination has no place for
+		// ("pinz" in pinz.1.wired_to, "dropout" in family.dropout).
+		bad := k[len(k)-1]
+		for i := 1; i <= len(k); i++ {
+			if destType(reflect.TypeOf(v), k[:i]) == nil {
+				bad = k[i-1]
+				break
+			}
+		}
+		msg := fmt.Sprintf("unknown key %q", bad)
 		if hint != "" {
 			msg += "; " + hint
 		}
@@ -195,6 +224,52 @@ func Decode(file string, data []byte, v any, hint string) (lz *Lazy, errs ErrorL
 	errs = dropNested(errs)
 	errs.Sort()
 	return lz, errs, true
+}
+
+func withArticle(w string) string {
+	if w != "" && strings.ContainsAny(w[:1], "aeiou") {
+		return "an " + w
+	}
+	return "a " + w
+}
+
+var unmarshalerType = reflect.TypeOf((*toml.Unmarshaler)(nil)).Elem()
+
+// destType follows a key path through the Go type the document is decoded
+// into (struct fields by toml tag, map values, slice elements) and returns the
+// type at its end, or nil when the path leaves the type.
+func destType(t reflect.Type, k toml.Key) reflect.Type {
+	for _, part := range k {
+		for t.Kind() == reflect.Pointer || t.Kind() == reflect.Slice {
+			t = t.Elem()
+		}
+		switch t.Kind() {
+		case reflect.Map:
+			t = t.Elem()
+		case reflect.Struct:
+			found := false
+			for i := 0; i < t.NumField(); i++ {
+				f := t.Field(i)
+				name := strings.Split(f.Tag.Get("toml"), ",")[0]
+				if name == "" {
+					name = f.Name
+				}
+				if name == part {
+					t, found = f.Type, true
+					break
+				}
+			}
+			if !found {
+				return nil
+			}
+		default:
+			return nil
+		}
+	}
+	for t.Kind() == reflect.Pointer {
+		t = t.Elem()
+	}
+	return t
 }
 
 func dropNested(l ErrorList) ErrorList {

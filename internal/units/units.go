@@ -79,6 +79,10 @@ func parse(s, unit string) (float64, bool, error) {
 	if s == "" {
 		return 0, false, fmt.Errorf("%w: empty string", ErrSyntax)
 	}
+	switch strings.ToLower(strings.TrimLeft(s, "+-")) {
+	case "nan", "inf", "infinity":
+		return 0, false, fmt.Errorf("%w: %q is not a finite number", ErrSyntax, orig)
+	}
 	marked := false
 	if rest, ok := trimUnit(s, unit); ok {
 		s, marked = rest, true
