@@ -135,17 +135,6 @@ func Agreement(p, q string) (n int, ok bool) {
 	return m[0][0], true
 }
 
-// literals counts the characters of a pattern that are not wildcards.
-func literals(p string) int {
-	n := 0
-	for _, r := range p {
-		if r != '?' && r != '*' {
-			n++
-		}
-	}
-	return n
-}
-
 // Expansion is one marking pattern with the voltage code filled in.
 type Expansion struct {
 	Pattern  string  // as written in the catalog
