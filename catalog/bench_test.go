@@ -1,12 +1,11 @@
 package catalog_test
 
 import (
-	"fmt"
-	"strings"
 	"testing"
 
 	"github.com/whichreg/whichreg/catalog"
 	"github.com/whichreg/whichreg/catalog/builtin"
+	"github.com/whichreg/whichreg/internal/gencat"
 )
 
 func BenchmarkLoadBuiltin(b *testing.B) {
@@ -22,40 +21,8 @@ func BenchmarkLoadBuiltin(b *testing.B) {
 	}
 }
 
-// genCatalog writes a catalog of n invented families (for benchmarks only),
-// each a fixed 5 V part in a TO-220 with a marking of its own.
-func genCatalog(n int) []byte {
-	var b strings.Builder
-	for i := 0; i < n; i++ {
-		fmt.Fprintf(&b, `[[family]]
-id = "gen%d"
-title = "generated"
-polarity = "positive"
-kind = "fixed"
-outputs_v = [5]
-tolerance = 0.04
-current_a = 1.0
-vin_max_v = 35
-dropout_v = 2.0
-iq_ma = 8
-tj_max_c = 125
-status = "active"
-commonness = 3
-markings = ["*G%dX{VV}*"]
-source = "generated for a benchmark"
-  [[family.package]]
-  outline = "TO-220"
-  pins = ["IN", "GND", "OUT"]
-  tab = "GND"
-  theta_jc = 5
-  theta_ja = 65
-`, i, i)
-	}
-	return []byte(b.String())
-}
-
 func benchLoadN(b *testing.B, n int) {
-	data := genCatalog(n)
+	data := gencat.Generate(n)
 	base, _ := builtin.Files()
 	b.SetBytes(int64(len(data)))
 	for b.Loop() {
@@ -75,7 +42,7 @@ func BenchmarkLoad10k(b *testing.B) { benchLoadN(b, 10000) }
 
 func benchFindN(b *testing.B, n int) {
 	base, _ := builtin.Files()
-	f, _ := catalog.Load("gen.toml", genCatalog(n))
+	f, _ := catalog.Load("gen.toml", gencat.Generate(n))
 	c := catalog.Merge(append(base, f)...)
 	for b.Loop() {
 		if hits := catalog.Find(c, "?M3?7"); len(hits) == 0 {

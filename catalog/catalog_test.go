@@ -287,8 +287,9 @@ func TestVoltageCode(t *testing.T) {
 
 func FuzzLoadCatalog(f *testing.F) {
 	seeds, _ := filepath.Glob("../testdata/catalog/*/*.toml")
-	builtinSeeds, _ := filepath.Glob("builtin/*.toml")
-	seeds = append(seeds, builtinSeeds...)
+	more, _ := filepath.Glob("../testdata/fuzz/catalog/*")
+	bad, _ := filepath.Glob("../testdata/bad/catalog-*.toml")
+	seeds = append(append(seeds, more...), bad...)
 	if len(seeds) == 0 {
 		f.Fatal("no seed files found")
 	}
@@ -307,8 +308,11 @@ func FuzzLoadCatalog(f *testing.F) {
 		for _, e := range errs {
 			_ = e.Error()
 		}
-		for _, fam := range c.Families {
-			catalog.Find(c, fam.ID)
+		if len(file.Families) > 0 {
+			catalog.Find(c, file.Families[0].ID)
+			for _, fam := range file.Families {
+				fam.Expand()
+			}
 		}
 	})
 }

@@ -9,6 +9,16 @@ import (
 	"github.com/sahilm/fuzzy"
 )
 
+// StripWildcards returns s without its ? and * characters.
+func StripWildcards(s string) string {
+	return strings.Map(func(r rune) rune {
+		if r == '?' || r == '*' {
+			return -1
+		}
+		return r
+	}, s)
+}
+
 // VoltageToken stands in a fixed family's marking for the voltage code.
 const VoltageToken = "{VV}"
 
@@ -235,7 +245,7 @@ func Find(c *Catalog, query string) []Hit {
 		}
 		return hits[i].Family.Commonness > hits[j].Family.Commonness
 	})
-	lit := strings.NewReplacer("?", "", "*", "").Replace(q)
+	lit := StripWildcards(q)
 	if len(lit) < 2 {
 		return hits
 	}
@@ -247,7 +257,7 @@ func Find(c *Catalog, query string) []Hit {
 			continue
 		}
 		for _, m := range f.Markings {
-			t := strings.NewReplacer("?", "", "*", "").Replace(NormalizeMarking(strings.ReplaceAll(m, VoltageToken, "")))
+			t := StripWildcards(NormalizeMarking(strings.ReplaceAll(m, VoltageToken, "")))
 			if t == "" {
 				continue
 			}

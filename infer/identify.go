@@ -255,7 +255,7 @@ func Identify(c *catalog.Catalog, ev *Evidence, opts Options) (*Result, error) {
 func operatingPoint(c *catalog.Catalog, ev *Evidence) (*opPoint, error) {
 	op := &opPoint{marking: catalog.NormalizeMarking(ev.Marking), matches: map[markKey]markMatch{}, expansions: map[*catalog.Family][]catalog.Expansion{}}
 	op.legible = catalog.Legible(op.marking)
-	op.nLegible = len(strings.NewReplacer("?", "", "*", "").Replace(op.marking))
+	op.nLegible = len(catalog.StripWildcards(op.marking))
 	if op.legible {
 		op.fuzzyHit = map[string]bool{}
 		for _, h := range catalog.Find(c, ev.Marking) {

@@ -17,6 +17,7 @@ import (
 	"github.com/whichreg/whichreg/catalog"
 	"github.com/whichreg/whichreg/catalog/builtin"
 	"github.com/whichreg/whichreg/infer"
+	"github.com/whichreg/whichreg/internal/gencat"
 )
 
 var update = flag.Bool("update", false, "update golden files")
@@ -279,7 +280,9 @@ func TestBadEvidence(t *testing.T) {
 func FuzzLoadEvidence(f *testing.F) {
 	seeds, _ := filepath.Glob("../testdata/*/*.toml")
 	bad, _ := filepath.Glob("../testdata/evidence/bad/*.toml")
-	seeds = append(seeds, bad...)
+	corpus, _ := filepath.Glob("../testdata/bad/evidence-*.toml")
+	more, _ := filepath.Glob("../testdata/fuzz/evidence/*")
+	seeds = append(append(append(seeds, bad...), corpus...), more...)
 	if len(seeds) == 0 {
 		f.Fatal("no seeds")
 	}
@@ -323,6 +326,37 @@ func BenchmarkIdentifyAllReasons(b *testing.B) {
 	ev := load(b, c, "../testdata/demo/bench-supply-negative.toml")
 	for b.Loop() {
 		if _, err := infer.Identify(c, ev, infer.Options{}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+func benchIdentifyN(b *testing.B, n int) {
+	base, _ := builtin.Files()
+	f, errs := catalog.Load("gen.toml", gencat.Generate(n))
+	if len(errs) > 0 {
+		b.Fatal(errs)
+	}
+	c := catalog.Merge(append(base, f)...)
+	ev := load(b, c, "../testdata/demo/bench-supply-negative.toml")
+	b.ResetTimer()
+	for b.Loop() {
+		if _, err := infer.Identify(c, ev, infer.Options{Explain: 8}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+func BenchmarkIdentify1k(b *testing.B)   { benchIdentifyN(b, 1000) }
+func BenchmarkIdentify10k(b *testing.B)  { benchIdentifyN(b, 10000) }
+func BenchmarkIdentify100k(b *testing.B) { benchIdentifyN(b, 100000) }
+
+func BenchmarkSwap(b *testing.B) {
+	c := builtinCatalog(b)
+	ev := load(b, c, "../testdata/demo/vending-lifted-ground.toml")
+	res, _ := infer.Identify(c, ev, infer.Options{Explain: 1})
+	for b.Loop() {
+		if _, err := infer.Swap(c, ev, res.Candidates[0].Hypothesis, 1, true, infer.SwapOptions{}); err != nil {
 			b.Fatal(err)
 		}
 	}

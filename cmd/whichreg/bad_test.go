@@ -84,3 +84,24 @@ func checkGolden(t *testing.T, args []string, golden string) {
 		t.Errorf("mismatch (-want +got):\n%s", diff)
 	}
 }
+
+// FuzzCalcFlags runs the calculators with arbitrary flag values: every run
+// ends with exit 0, 1 or 2 and never panics.
+func FuzzCalcFlags(f *testing.F) {
+	f.Add("bridge", "12.6", "2200u", "0.8", "0.1", "50")
+	f.Add("half-wave", "0", "-1", "NaN", "4k7", "1e9")
+	f.Add("center-tap", "1e308", "1e-12", "1000", "0R22", "60")
+	f.Fuzz(func(t *testing.T, rect, vrms, cap, load, reg, hz string) {
+		for _, args := range [][]string{
+			{"calc", "rectifier", "--rectifier", rect, "--vrms", vrms, "--cap", cap, "--load", load, "--regulation", reg, "--hz", hz, "--format", "json"},
+			{"calc", "divider", "--target", vrms, "--vref", reg, "--iadj", load},
+			{"calc", "boost", "--r", reg, "--vin-min", vrms, "--vin-max", cap, "--vout", load},
+			{"calc", "heatsink", "--power", load, "--theta-jc", reg, "--theta-sa", hz},
+		} {
+			app, _, _ := testApp()
+			if code := run(app, args); code < 0 || code > 2 {
+				t.Fatalf("%v: exit %d", args, code)
+			}
+		}
+	})
+}

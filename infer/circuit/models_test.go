@@ -169,3 +169,30 @@ func TestPlanTestLoad(t *testing.T) {
 		t.Error("8 kW from stock resistors should be impossible")
 	}
 }
+
+// FuzzModels: the divider chooser, the test-load planner and the bypass and
+// thermal models return an error or finite numbers for any input, and never
+// panic.
+func FuzzModels(f *testing.F) {
+	f.Add(12.0, 1.25, 50e-6, 10e-3, 5.0, 1.0, 10.0, 0.5)
+	f.Add(-3.0, 0.0, -1.0, 1e9, 0.0, 0.0, -1.0, 2.0)
+	f.Add(1e300, 1e-300, 1e3, 0.0, 1e6, 1e-6, 1e-9, 0.999)
+	f.Fuzz(func(t *testing.T, target, vref, i, minLoad, volts, amps, r, derate float64) {
+		if c, err := ChooseDivider(DividerSpec{TargetV: target, VrefV: vref, ITypA: i, IMaxA: i, MinLoadA: minLoad}); err == nil {
+			if math.IsNaN(c.VoutV) || math.IsInf(c.VoutV, 0) {
+				t.Fatalf("divider %+v", c)
+			}
+		}
+		if volts < 1e4 && amps < 1e3 { // keep the planner's search bounded in time
+			if p, err := PlanTestLoad(volts, amps, nil, nil, derate); err == nil && (p.CurrentA < amps*(1-1e-9) || math.IsNaN(p.PowerW)) {
+				t.Fatalf("plan %+v", p)
+			}
+		}
+		if b, err := (Bypass{ROhm: r, VinMinV: volts, VinMaxV: volts * 1.2, VoutV: target, LoadMinA: amps, LoadMaxA: amps * 2}).Solve(); err == nil {
+			if math.IsNaN(b.MinLoadA) {
+				t.Fatalf("bypass %+v", b)
+			}
+		}
+		_, _ = RequiredThetaSA(volts, 25, 125, r, 1)
+	})
+}

@@ -174,15 +174,12 @@ func Decode(file string, data []byte, v any, hint string) (lz *Lazy, errs ErrorL
 	}
 	// The TOML library accepts a plain value where a table belongs (a map
 	// field given "pins = 3" decodes to nothing); say so instead.
-	for _, k := range md.Keys() {
-		t := destType(reflect.TypeOf(v), k)
-		if t == nil || t.Implements(unmarshalerType) || reflect.PointerTo(t).Implements(unmarshalerType) {
+	for _, p := range mapPaths(reflect.TypeOf(v), nil, 0) {
+		if !md.IsDefined(p...) {
 			continue
 		}
-		if t.Kind() != reflect.Struct && t.Kind() != reflect.Map {
-			continue
-		}
-		if typ := md.Type(k...); typ != "Hash" && typ != "ArrayHash" {
+		if typ := md.Type(p...); typ != "Hash" && typ != "" { // "" is a table made implicitly by [pins.1]
+			k := toml.Key(p)
 			ent := lz.Index().Nearest(k.String())
 			errs = append(errs, &Error{File: file, Line: ent.Line, Col: ent.Col, Key: k.String(),
 				Err: fmt.Errorf("%q must be a table ([%s] with keys below it), not %s", k.String(), k.String(), withArticle(strings.ToLower(typ)))})
@@ -234,6 +231,40 @@ func withArticle(w string) string {
 }
 
 var unmarshalerType = reflect.TypeOf((*toml.Unmarshaler)(nil)).Elem()
+
+// mapPaths returns the key paths of the map-typed fields of struct type t
+// (not below arrays, where the TOML library reports mismatches itself).
+func mapPaths(t reflect.Type, prefix []string, depth int) [][]string {
+	for t.Kind() == reflect.Pointer {
+		t = t.Elem()
+	}
+	if t.Kind() != reflect.Struct || depth > 8 {
+		return nil
+	}
+	var out [][]string
+	for i := 0; i < t.NumField(); i++ {
+		f := t.Field(i)
+		name := strings.Split(f.Tag.Get("toml"), ",")[0]
+		if name == "-" || !f.IsExported() {
+			continue
+		}
+		if name == "" {
+			name = f.Name
+		}
+		p := append(append([]string(nil), prefix...), name)
+		ft := f.Type
+		for ft.Kind() == reflect.Pointer {
+			ft = ft.Elem()
+		}
+		switch {
+		case ft.Kind() == reflect.Map:
+			out = append(out, p)
+		case ft.Kind() == reflect.Struct && !reflect.PointerTo(ft).Implements(unmarshalerType):
+			out = append(out, mapPaths(ft, p, depth+1)...)
+		}
+	}
+	return out
+}
 
 // destType follows a key path through the Go type the document is decoded
 // into (struct fields by toml tag, map values, slice elements) and returns the

@@ -3,6 +3,9 @@ package units
 import (
 	"errors"
 	"math"
+	"os"
+	"path/filepath"
+	"strings"
 	"testing"
 )
 
@@ -87,6 +90,19 @@ func TestFormat(t *testing.T) {
 func FuzzParse(f *testing.F) {
 	for _, s := range []string{"4k7", "0R22", "2u2", "1.6A", "330m", "1e308", "-5", "NaN", "µ", "2200uF"} {
 		f.Add(s)
+	}
+	seeds, _ := filepath.Glob("../../testdata/fuzz/units/*")
+	if len(seeds) == 0 {
+		f.Fatal("no seeds under testdata/fuzz/units")
+	}
+	for _, name := range seeds {
+		data, err := os.ReadFile(name)
+		if err != nil {
+			f.Fatal(err)
+		}
+		for _, line := range strings.Split(string(data), "\n") {
+			f.Add(line)
+		}
 	}
 	f.Fuzz(func(t *testing.T, s string) {
 		v, err := Parse(s, "F")
