@@ -193,6 +193,9 @@ func nextMeasurements(ev *Evidence, res *Result, n int) []Measurement {
 			describe: func(key string) string { return "load " + key },
 		})
 	}
+	if tr := troughMeasurement(ev); tr != nil {
+		ms = append(ms, *tr)
+	}
 	var out []Measurement
 	for _, m := range ms {
 		gain, joint := mutualInfo(hs, 0, m.predict)
@@ -206,6 +209,56 @@ func nextMeasurements(ev *Evidence, res *Result, n int) []Measurement {
 		out = out[:n]
 	}
 	return out
+}
+
+// troughMeasurement offers the scope measurement of the input's ripple
+// trough, when the mean input and output are known but the trough is not.
+// The true part regulates, so its trough headroom lies between what it needs
+// and the measured mean headroom: uniformly, for want of anything better
+// (common practice, no source).
+func troughMeasurement(ev *Evidence) *measurement {
+	if ev.Input != nil && ev.Input.TroughVolts.Set {
+		return nil
+	}
+	return &measurement{
+		name: "input ripple trough (scope on the IN lead at full load)",
+		predict: func(h Hypothesis) outcomeDist {
+			tv := terminalVolts(h, ev)
+			vin, okIn := tv[catalog.PinIn]
+			vout, okOut := tv[catalog.PinOut]
+			if !okIn || !okOut {
+				return outcomeDist{"unknown": 1}
+			}
+			mean := math.Abs(vin - vout)
+			need := h.Family.DropoutV * 0.7
+			if mean <= need {
+				return outcomeDist{troughBucket(mean): 1}
+			}
+			d := outcomeDist{}
+			edges := []float64{need, 1, 2, mean}
+			for i := 0; i+1 < len(edges); i++ {
+				a, b := math.Max(edges[i], need), math.Min(edges[i+1], mean)
+				if i == 2 {
+					a = math.Max(2, need)
+				}
+				if b > a {
+					d[troughBucket((a+b)/2)] += (b - a) / (mean - need)
+				}
+			}
+			return d
+		},
+		describe: func(key string) string { return "trough headroom " + key },
+	}
+}
+
+func troughBucket(h float64) string {
+	switch {
+	case h < 1:
+		return "below 1 V"
+	case h < 2:
+		return "1 to 2 V"
+	}
+	return "above 2 V"
 }
 
 // leadLevel names the level a lead of function fn sits at under h.

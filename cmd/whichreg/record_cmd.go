@@ -268,12 +268,12 @@ func writeRecordMarkdown(w io.Writer, rec recordJSON, sres *infer.SwapResult, ch
 		fmt.Fprintf(w, "| %d | %s | %s %s %s | %+.2f |\n", i+1, pct(cd.Probability), cd.Family, cd.Package, voutText(cd.Vout), cd.Score)
 	}
 	fmt.Fprintf(w, "| – | %s | not in the catalog | |\n\n", pct(rec.NotInCatalog))
-	if len(rec.Identification) > 0 {
-		top := rec.Identification[0]
-		fmt.Fprintf(w, "Reasons for %s %s %s:\n\n", top.Family, top.Package, voutText(top.Vout))
-		for _, r := range top.Reasons {
+	for _, cd := range rec.Identification {
+		fmt.Fprintf(w, "Reasons for %s %s %s (score %+.2f):\n\n", cd.Family, cd.Package, voutText(cd.Vout), cd.Score)
+		for _, r := range cd.Reasons {
 			fmt.Fprintf(w, "- %+.2f %s: %s\n", r.Weight, r.Evidence, mdEscape(r.Text))
 		}
+		fmt.Fprintln(w)
 	}
 	for _, c := range rec.Conflicts {
 		fmt.Fprintf(w, "- conflict: %s\n", mdEscape(c))

@@ -83,6 +83,14 @@ func TestChooseDivider(t *testing.T) {
 	if math.Abs(v-c.VoutV) > 1e-12 {
 		t.Errorf("VoutV %g does not match the formula %g", c.VoutV, v)
 	}
+	// TI TL783 SLVS036 design considerations: R1 = 82 Ω gives the 15 mA
+	// minimum load (1.25 V / 82 Ω = 15.2 mA).
+	// With the minimum load at 15 mA no R1 above 83 Ω qualifies, and the
+	// E24 pair 82 Ω / 820 Ω gives 13.82 V.
+	c783, err := ChooseDivider(DividerSpec{TargetV: 13.82, VrefV: 1.25, ITypA: 83e-6, IMaxA: 110e-6, MinLoadA: 15e-3})
+	if err != nil || c783.R1Ohm != 82 || c783.R2Ohm != 820 || c783.DividerA < 15e-3 {
+		t.Errorf("TL783 divider %+v, %v; want R1 = 82 Ω drawing 15.2 mA", c783, err)
+	}
 	if _, err := ChooseDivider(DividerSpec{TargetV: 1.0, VrefV: 1.25}); err == nil {
 		t.Error("a target below vref should be an error")
 	}
