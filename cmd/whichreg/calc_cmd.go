@@ -7,6 +7,7 @@ import (
 
 	"github.com/spf13/cobra"
 
+	"github.com/whichreg/whichreg/infer"
 	"github.com/whichreg/whichreg/infer/circuit"
 	"github.com/whichreg/whichreg/internal/units"
 )
@@ -159,8 +160,10 @@ func calcRectifierRun(o *calcRectifierOptions) error {
 		return inputError(err)
 	}
 	if o.Format == "json" {
-		return writeJSON(out, rectifierJSON{o.Rectifier, r.VrmsV, r.SourceOhm, res.PeakV, res.TroughV, res.MeanV, res.RippleVpp,
-			res.CapRippleARMS, res.DiodePeakA, res.ConductionDeg, cr})
+		res = roundResult(res)
+		rc := roundConditions(infer.Conditions{Corners: &cr}).Corners
+		return writeJSON(out, rectifierJSON{o.Rectifier, sig(r.VrmsV), sig(r.SourceOhm), res.PeakV, res.TroughV, res.MeanV, res.RippleVpp,
+			res.CapRippleARMS, res.DiodePeakA, res.ConductionDeg, *rc})
 	}
 	fmt.Fprintf(out, "%s rectifier, %s secondary EMF behind %s, %g Hz, %s filter",
 		o.Rectifier, units.Format(r.VrmsV, "V rms"), units.Format(r.SourceOhm, "Ω"), o.Hz, units.Format(o.Cap, "F"))

@@ -3,6 +3,7 @@ package main
 import (
 	"fmt"
 	"io"
+	"math"
 	"strconv"
 	"strings"
 
@@ -10,6 +11,7 @@ import (
 
 	"github.com/whichreg/whichreg/catalog"
 	"github.com/whichreg/whichreg/infer"
+	"github.com/whichreg/whichreg/infer/circuit"
 )
 
 type swapOptions struct {
@@ -178,10 +180,42 @@ type replacementJSON struct {
 	Install  []string      `json:"install"`
 }
 
+// sig rounds x to 6 significant figures, so that JSON output does not carry
+// the last bits of the solver.
+func sig(x float64) float64 {
+	if x == 0 || math.IsNaN(x) || math.IsInf(x, 0) {
+		return x
+	}
+	p := math.Pow(10, 5-math.Floor(math.Log10(math.Abs(x))))
+	return math.Round(x*p) / p
+}
+
+func roundResult(r circuit.Result) circuit.Result {
+	r.PeakV, r.TroughV, r.MeanV, r.RippleVpp = sig(r.PeakV), sig(r.TroughV), sig(r.MeanV), sig(r.RippleVpp)
+	r.CapRippleARMS, r.DiodePeakA, r.ConductionDeg, r.LoadA = sig(r.CapRippleARMS), sig(r.DiodePeakA), sig(r.ConductionDeg), sig(r.LoadA)
+	return r
+}
+
+// roundConditions rounds the worst-corner numbers for output.
+func roundConditions(c infer.Conditions) infer.Conditions {
+	c.VoutV, c.TroughV, c.PeakV, c.HotInV = sig(c.VoutV), sig(c.TroughV), sig(c.PeakV), sig(c.HotInV)
+	if c.Corners != nil {
+		cr := *c.Corners
+		cr.Corners = append([]circuit.Corner(nil), cr.Corners...)
+		for i := range cr.Corners {
+			cr.Corners[i].Result = roundResult(cr.Corners[i].Result)
+		}
+		cr.WorstTrough.Result = roundResult(cr.WorstTrough.Result)
+		cr.WorstPeak.Result = roundResult(cr.WorstPeak.Result)
+		c.Corners = &cr
+	}
+	return c
+}
+
 func swapJSONOf(res *infer.SwapResult) swapJSON {
 	j := swapJSON{
 		Original:    originalJSON{res.Original.Family.ID, res.Original.Package.Outline, signedVout(res.Original), round(res.Probability, 6), res.FromInfer},
-		Assumptions: res.Assumptions, Conditions: res.Conditions, Hidden: res.Hidden, Replacements: []replacementJSON{},
+		Assumptions: res.Assumptions, Conditions: roundConditions(res.Conditions), Hidden: res.Hidden, Replacements: []replacementJSON{},
 	}
 	if j.Assumptions == nil {
 		j.Assumptions = []string{}

@@ -316,13 +316,16 @@ func (s *state) cycle(vc0 float64, steps int, period float64, rec *Result) (floa
 
 // shoot finds the capacitor voltage at the start of a periodic ripple period
 // by Newton's method, and returns it with the sensitivity of one period.
-func (s *state) shoot(steps int, period float64) (x, sens float64, converged bool) {
+// When rec is non-nil every cycle is recorded into it, so that on success it
+// holds the converged cycle's figures.
+func (s *state) shoot(steps int, period float64, rec *Result) (x, sens float64, converged bool) {
 	x = math.Max(0, s.vp-s.nd*0.7)
 	for it := 0; it < 60; it++ {
 		var end float64
-		end, sens = s.cycle(x, steps, period, nil)
+		end, sens = s.cycle(x, steps, period, rec)
 		f := end - x
-		if math.Abs(f) < 1e-9*math.Max(1, s.vp) {
+		// 1e-7 of the peak: far inside the 1 % the results are checked to.
+		if math.Abs(f) < 1e-7*math.Max(1, s.vp) {
 			return x, sens, true
 		}
 		den := sens - 1
@@ -376,12 +379,11 @@ func (r Rectifier) Solve() (Result, error) {
 		period /= 2
 		steps /= 2
 	}
-	x, sens, converged := s.shoot(steps, period)
+	var res Result
+	_, sens, converged := s.shoot(steps, period, &res)
 	if !converged {
 		return Result{}, fmt.Errorf("rectifier: %w after 60 shooting iterations", ErrNoSteadyState)
 	}
-	var res Result
-	s.cycle(x, steps, period, &res)
 	if res.TroughV <= 0 {
 		return Result{}, fmt.Errorf("rectifier: the filter cannot carry this load: the voltage falls to %.3g V each cycle (more capacitance or less load)", res.TroughV)
 	}
@@ -414,7 +416,7 @@ func (r Rectifier) Waveform(cycles int) (times, volts []float64, err error) {
 	if s.full {
 		ps, pst = period/2, steps/2
 	}
-	x, _, _ := s.shoot(pst, ps)
+	x, _, _ := s.shoot(pst, ps, nil)
 	dt := period / float64(steps)
 	vc := x
 	ic, _, _, vout, vj := s.capCurrent(vc, 0, 0)
