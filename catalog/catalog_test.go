@@ -12,6 +12,7 @@ import (
 
 	"github.com/whichreg/whichreg/catalog"
 	"github.com/whichreg/whichreg/catalog/builtin"
+	"github.com/whichreg/whichreg/internal/golden"
 )
 
 var update = flag.Bool("update", false, "update golden files")
@@ -210,20 +211,7 @@ func TestBadCatalogs(t *testing.T) {
 			if got == "" {
 				t.Fatalf("%s lints clean; it should not", name)
 			}
-			golden := strings.TrimSuffix(name, ".toml") + ".golden"
-			if *update {
-				if err := os.WriteFile(golden, []byte(got), 0o644); err != nil {
-					t.Fatal(err)
-				}
-				return
-			}
-			want, err := os.ReadFile(golden)
-			if err != nil {
-				t.Fatalf("missing golden file (run go test ./catalog -update): %v", err)
-			}
-			if diff := cmp.Diff(string(want), got); diff != "" {
-				t.Errorf("lint output mismatch (-want +got):\n%s", diff)
-			}
+			golden.Check(t, strings.TrimSuffix(name, ".toml")+".golden", got, *update)
 		})
 	}
 }

@@ -12,12 +12,11 @@ import (
 	"strings"
 	"testing"
 
-	"github.com/google/go-cmp/cmp"
-
 	"github.com/whichreg/whichreg/catalog"
 	"github.com/whichreg/whichreg/catalog/builtin"
 	"github.com/whichreg/whichreg/infer"
 	"github.com/whichreg/whichreg/internal/gencat"
+	"github.com/whichreg/whichreg/internal/golden"
 )
 
 var update = flag.Bool("update", false, "update golden files")
@@ -144,18 +143,7 @@ func TestScenarios(t *testing.T) {
 				g.Next = append(g.Next, fmt.Sprintf("%s (%.2f bits)", m.Measure, m.GainBits))
 			}
 			got, _ := json.MarshalIndent(g, "", "  ")
-			golden := strings.TrimSuffix(name, ".toml") + ".golden.json"
-			if *update {
-				os.WriteFile(golden, append(got, '\n'), 0o644)
-				return
-			}
-			want, err := os.ReadFile(golden)
-			if err != nil {
-				t.Fatalf("no golden file (go test ./infer -update): %v", err)
-			}
-			if diff := cmp.Diff(strings.TrimSpace(string(want)), strings.TrimSpace(string(got))); diff != "" {
-				t.Errorf("ranking mismatch (-want +got):\n%s", diff)
-			}
+			golden.Check(t, strings.TrimSuffix(name, ".toml")+".golden.json", string(got)+"\n", *update)
 		})
 	}
 }
@@ -264,15 +252,7 @@ func TestBadEvidence(t *testing.T) {
 			if !strings.HasPrefix(got, rel+":") {
 				t.Errorf("message does not start with file:line: %q", got)
 			}
-			golden := strings.TrimSuffix(name, ".toml") + ".golden"
-			if *update {
-				os.WriteFile(golden, []byte(got), 0o644)
-				return
-			}
-			want, _ := os.ReadFile(golden)
-			if diff := cmp.Diff(string(want), got); diff != "" {
-				t.Errorf("message mismatch (-want +got):\n%s", diff)
-			}
+			golden.Check(t, strings.TrimSuffix(name, ".toml")+".golden", got, *update)
 		})
 	}
 }

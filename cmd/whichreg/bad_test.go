@@ -7,7 +7,7 @@ import (
 	"strings"
 	"testing"
 
-	"github.com/google/go-cmp/cmp"
+	"github.com/whichreg/whichreg/internal/golden"
 )
 
 // TestBadInput runs every file of the bad-input corpus under testdata/bad
@@ -50,7 +50,7 @@ func TestBadInput(t *testing.T) {
 	}
 }
 
-func checkGolden(t *testing.T, args []string, golden string) {
+func checkGolden(t *testing.T, args []string, goldenPath string) {
 	t.Helper()
 	app, out, errOut := testApp()
 	code := run(app, args)
@@ -62,7 +62,7 @@ func checkGolden(t *testing.T, args []string, golden string) {
 		return s
 	}
 	got := fmt.Sprintf("exit %d\n-- stdout --\n%s-- stderr --\n%s", code, clean(out.String()), clean(errOut.String()))
-	if code == 0 && !strings.Contains(golden, "evidence-empty") {
+	if code == 0 && !strings.Contains(goldenPath, "evidence-empty") {
 		t.Errorf("exit 0 for bad input")
 	}
 	for _, bad := range []string{"goroutine ", "panic:", ".go:"} {
@@ -70,19 +70,7 @@ func checkGolden(t *testing.T, args []string, golden string) {
 			t.Errorf("output contains %q:\n%s", bad, got)
 		}
 	}
-	if *updateScripts {
-		if err := os.WriteFile(golden, []byte(got), 0o644); err != nil {
-			t.Fatal(err)
-		}
-		return
-	}
-	want, err := os.ReadFile(golden)
-	if err != nil {
-		t.Fatalf("missing golden (go test ./cmd/whichreg -update): %v", err)
-	}
-	if diff := cmp.Diff(string(want), got); diff != "" {
-		t.Errorf("mismatch (-want +got):\n%s", diff)
-	}
+	golden.Check(t, goldenPath, got, *updateScripts)
 }
 
 // FuzzCalcFlags runs the calculators with arbitrary flag values: every run

@@ -193,12 +193,7 @@ func writeInferText(w io.Writer, ev *infer.Evidence, res *infer.Result, top, why
 			fmt.Fprintf(w, "  %+6.2f  %-22s %s\n", r.Weight, r.Evidence, r.Text)
 		}
 	}
-	if len(res.Conflicts) > 0 {
-		fmt.Fprintln(w, "\nConflicts in the evidence:")
-		for _, c := range res.Conflicts {
-			fmt.Fprintf(w, "  - %s\n", c)
-		}
-	}
+	writeList(w, "Conflicts in the evidence:", res.Conflicts)
 	if len(res.Next) > 0 {
 		fmt.Fprintln(w, "\nMeasure next (expected information gain):")
 		for i, m := range res.Next {
@@ -208,12 +203,7 @@ func writeInferText(w io.Writer, ev *infer.Evidence, res *infer.Result, top, why
 			}
 		}
 	}
-	if len(res.Assumptions) > 0 {
-		fmt.Fprintln(w, "\nAssumed:")
-		for _, a := range res.Assumptions {
-			fmt.Fprintf(w, "  - %s\n", a)
-		}
-	}
+	writeList(w, "Assumed:", res.Assumptions)
 	fmt.Fprintln(w, "\nConfirm the pinout against the maker's datasheet before fitting anything; 'whichreg swap' checks replacements.")
 }
 
@@ -260,6 +250,17 @@ func writeCandidateTable(w io.Writer, res *infer.Result, top int) {
 		fmt.Fprintf(w, "| %d | %s | %s | %+.2f |\n", i+1, pct(c.Probability), c.Label(), c.Score)
 	}
 	fmt.Fprintf(w, "| – | %s | not in the catalog | %+.2f |\n", pct(res.NotInCatalog), res.NotInCatalogScore)
+}
+
+// writeList writes a titled list of lines after a blank line, or nothing when empty.
+func writeList(w io.Writer, title string, items []string) {
+	if len(items) == 0 {
+		return
+	}
+	fmt.Fprintf(w, "\n%s\n", title)
+	for _, it := range items {
+		fmt.Fprintf(w, "  - %s\n", it)
+	}
 }
 
 func mdEscape(s string) string { return strings.ReplaceAll(s, "|", "\\|") }

@@ -117,22 +117,11 @@ func catalogHash(c *catalog.Catalog) string {
 }
 
 func recordRun(o *recordOptions) error {
-	c, err := o.app.loadCatalog()
+	st, err := prepareSwap(o.app, o.File, o.Original, true)
 	if err != nil {
 		return err
 	}
-	ev, err := loadEvidence(o.app, c, o.File)
-	if err != nil {
-		return err
-	}
-	orig, prob, fromInfer, ires, err := resolveOriginal(o.app, c, ev, o.Original)
-	if err != nil {
-		return err
-	}
-	sres, err := infer.Swap(c, ev, orig, prob, fromInfer, infer.SwapOptions{All: true})
-	if err != nil {
-		return inputError(fmt.Errorf("%s: %v", o.File, err))
-	}
+	c, ev, ires, sres := st.cat, st.ev, st.ires, st.sres
 	chosen, err := findChoice(c, sres, o.Choose)
 	if err != nil {
 		return err

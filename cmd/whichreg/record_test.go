@@ -2,13 +2,12 @@ package main
 
 import (
 	"bytes"
-	"os"
 	"path/filepath"
 	"strings"
 	"testing"
 	"time"
 
-	"github.com/google/go-cmp/cmp"
+	"github.com/whichreg/whichreg/internal/golden"
 )
 
 func testApp() (*App, *bytes.Buffer, *bytes.Buffer) {
@@ -43,20 +42,7 @@ func TestRecordGolden(t *testing.T) {
 			}
 			// The evidence path is relative to this package; keep the golden repository-relative.
 			got := strings.ReplaceAll(out.String(), "../../testdata/", "testdata/")
-			path := filepath.Join("../../testdata/demo", tc.golden)
-			if *updateScripts {
-				if err := os.WriteFile(path, []byte(got), 0o644); err != nil {
-					t.Fatal(err)
-				}
-				return
-			}
-			want, err := os.ReadFile(path)
-			if err != nil {
-				t.Fatalf("missing golden (go test ./cmd/whichreg -update): %v", err)
-			}
-			if diff := cmp.Diff(string(want), got); diff != "" {
-				t.Errorf("%s mismatch (-want +got):\n%s", tc.golden, diff)
-			}
+			golden.Check(t, filepath.Join("../../testdata/demo", tc.golden), got, *updateScripts)
 		})
 	}
 }

@@ -87,7 +87,7 @@ func parseOriginal(c *catalog.Catalog, spec string) (infer.Hypothesis, error) {
 }
 
 // resolveOriginal returns the original: named, or infer's leader.
-func resolveOriginal(app *App, c *catalog.Catalog, ev *infer.Evidence, spec string) (infer.Hypothesis, float64, bool, *infer.Result, error) {
+func resolveOriginal(c *catalog.Catalog, ev *infer.Evidence, spec string) (infer.Hypothesis, float64, bool, *infer.Result, error) {
 	res, err := infer.Identify(c, ev, infer.Options{})
 	if err != nil {
 		return infer.Hypothesis{}, 0, false, nil, inputError(err)
@@ -124,23 +124,41 @@ func resolveOriginal(app *App, c *catalog.Catalog, ev *infer.Evidence, spec stri
 	return lead.Hypothesis, lead.Probability, true, res, nil
 }
 
+// swapState is what swap and record share: the catalog, the evidence, the
+// identification, the original and the checked replacements.
+type swapState struct {
+	cat  *catalog.Catalog
+	ev   *infer.Evidence
+	ires *infer.Result
+	sres *infer.SwapResult
+}
+
+func prepareSwap(app *App, file, original string, all bool) (*swapState, error) {
+	c, err := app.loadCatalog()
+	if err != nil {
+		return nil, err
+	}
+	ev, err := loadEvidence(app, c, file)
+	if err != nil {
+		return nil, err
+	}
+	orig, prob, fromInfer, ires, err := resolveOriginal(c, ev, original)
+	if err != nil {
+		return nil, err
+	}
+	sres, err := infer.Swap(c, ev, orig, prob, fromInfer, infer.SwapOptions{All: all})
+	if err != nil {
+		return nil, inputError(fmt.Errorf("%s: %v", file, err))
+	}
+	return &swapState{c, ev, ires, sres}, nil
+}
+
 func swapRun(o *swapOptions) error {
-	c, err := o.app.loadCatalog()
+	st, err := prepareSwap(o.app, o.File, o.Original, o.All)
 	if err != nil {
 		return err
 	}
-	ev, err := loadEvidence(o.app, c, o.File)
-	if err != nil {
-		return err
-	}
-	orig, prob, fromInfer, _, err := resolveOriginal(o.app, c, ev, o.Original)
-	if err != nil {
-		return err
-	}
-	res, err := infer.Swap(c, ev, orig, prob, fromInfer, infer.SwapOptions{All: o.All})
-	if err != nil {
-		return inputError(fmt.Errorf("%s: %v", o.File, err))
-	}
+	res := st.sres
 	out := o.app.IO.Out
 	switch o.Format {
 	case "json":
@@ -275,12 +293,7 @@ func writeSwapText(w io.Writer, res *infer.SwapResult, details int) {
 			fmt.Fprintf(w, "  - %s\n", in)
 		}
 	}
-	if len(res.Assumptions) > 0 {
-		fmt.Fprintln(w, "\nAssumed:")
-		for _, a := range res.Assumptions {
-			fmt.Fprintf(w, "  - %s\n", a)
-		}
-	}
+	writeList(w, "Assumed:", res.Assumptions)
 	fmt.Fprintln(w, "\nSafety: unplug and discharge the filter capacitors before desoldering; tabs and heat sinks may be live or hot. Confirm against the maker's datasheet.")
 }
 
