@@ -183,8 +183,8 @@ type position struct {
 
 // Catalog is a merged set of outlines and families.
 type Catalog struct {
-	Outlines []Outline
-	Families []Family
+	Outlines []Outline // every outline, in load order
+	Families []Family  // every family, in load order (a replacement takes the replaced one\'s place)
 }
 
 // Family returns the family with the given id (case-insensitive), or nil.

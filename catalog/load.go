@@ -13,9 +13,9 @@ import (
 
 // File is one decoded catalog file.
 type File struct {
-	Name     string
-	Outlines []Outline
-	Families []Family
+	Name     string    // the name given to Load, used in messages and as Origin
+	Outlines []Outline // the file\'s outlines, in file order
+	Families []Family  // the file\'s families, in file order
 }
 
 type fileData struct {

@@ -22,10 +22,10 @@ var wiredWords = []string{WiredUnregulated, WiredLoad, WiredGround, WiredNetwork
 
 // OutlineEvidence is the package as measured with calipers.
 type OutlineEvidence struct {
-	Leads         *int        `toml:"leads" json:"leads,omitempty"`
-	PitchMM       Millimetres `toml:"pitch_mm" json:"pitch_mm"`
-	HoleSpacingMM Millimetres `toml:"hole_spacing_mm" json:"hole_spacing_mm"`
-	MetalCan      *bool       `toml:"metal_can" json:"metal_can,omitempty"`
+	Leads         *int        `toml:"leads" json:"leads,omitempty"`           // leads counted, not the tab
+	PitchMM       Millimetres `toml:"pitch_mm" json:"pitch_mm"`               // centre to centre of adjacent leads
+	HoleSpacingMM Millimetres `toml:"hole_spacing_mm" json:"hole_spacing_mm"` // between two mounting holes
+	MetalCan      *bool       `toml:"metal_can" json:"metal_can,omitempty"`   // a metal can
 }
 
 // PinEvidence is what one lead is connected to and what it reads.
@@ -41,27 +41,27 @@ type PinEvidence struct {
 type CaseEvidence struct {
 	// TiedToPin is the lead the case has continuity to; 0 = none.
 	TiedToPin *int   `toml:"tied_to_pin" json:"tied_to_pin,omitempty"`
-	WiredTo   string `toml:"wired_to" json:"wired_to,omitempty"`
-	Volts     Volts  `toml:"volts" json:"volts"`
+	WiredTo   string `toml:"wired_to" json:"wired_to,omitempty"` // where the case goes on the board (same words as the leads)
+	Volts     Volts  `toml:"volts" json:"volts"`                 // DC volts of the case to board ground
 }
 
 // InputEvidence is what feeds the part.
 type InputEvidence struct {
-	Rectifier           string      `toml:"rectifier" json:"rectifier,omitempty"` // bridge | center-tap | half-wave | dc
-	SecondaryVrms       Volts       `toml:"secondary_vrms" json:"secondary_vrms"`
+	Rectifier           string      `toml:"rectifier" json:"rectifier,omitempty"`             // bridge | center-tap | half-wave | dc
+	SecondaryVrms       Volts       `toml:"secondary_vrms" json:"secondary_vrms"`             // loaded secondary, V RMS (per half for center-tap)
 	SecondaryRegulation Fraction    `toml:"secondary_regulation" json:"secondary_regulation"` // default 0.10
-	FilterUF            Microfarads `toml:"filter_uf" json:"filter_uf"`
-	MainsHz             Hertz       `toml:"mains_hz" json:"mains_hz"`               // default 50
-	MainsTolerance      Fraction    `toml:"mains_tolerance" json:"mains_tolerance"` // default 0.10
-	DCVolts             Volts       `toml:"dc_volts" json:"dc_volts"`               // rectifier = "dc"
-	TroughVolts         Volts       `toml:"trough_volts" json:"trough_volts"`       // measured with a scope
+	FilterUF            Microfarads `toml:"filter_uf" json:"filter_uf"`                       // reservoir capacitor, µF
+	MainsHz             Hertz       `toml:"mains_hz" json:"mains_hz"`                         // default 50
+	MainsTolerance      Fraction    `toml:"mains_tolerance" json:"mains_tolerance"`           // default 0.10
+	DCVolts             Volts       `toml:"dc_volts" json:"dc_volts"`                         // rectifier = "dc"
+	TroughVolts         Volts       `toml:"trough_volts" json:"trough_volts"`                 // measured with a scope
 }
 
 // OutputEvidence is the regulated rail.
 type OutputEvidence struct {
-	Amps    Amps        `toml:"amps" json:"amps"`
-	MinAmps Amps        `toml:"min_amps" json:"min_amps"`
-	CapUF   Microfarads `toml:"cap_uf" json:"cap_uf"`
+	Amps    Amps        `toml:"amps" json:"amps"`                   // normal (maximum) load, A
+	MinAmps Amps        `toml:"min_amps" json:"min_amps"`           // lightest load, A
+	CapUF   Microfarads `toml:"cap_uf" json:"cap_uf"`               // capacitor at the output, µF
 	CapType string      `toml:"cap_type" json:"cap_type,omitempty"` // ceramic | tantalum | electrolytic | none
 }
 
@@ -75,32 +75,32 @@ type NetworkEvidence struct {
 	RTopOhms      Ohms  `toml:"r_top_ohms" json:"r_top_ohms"`           // output to common/ADJ
 	RBottomOhms   Ohms  `toml:"r_bottom_ohms" json:"r_bottom_ohms"`     // common/ADJ to the return rail
 	BottomToVolts Volts `toml:"bottom_to_volts" json:"bottom_to_volts"` // the return rail
-	Trimmer       *bool `toml:"trimmer" json:"trimmer,omitempty"`
+	Trimmer       *bool `toml:"trimmer" json:"trimmer,omitempty"`       // the network has a trimmer
 }
 
 // MountEvidence is how the part is cooled.
 type MountEvidence struct {
-	HeatsinkCPerW   CPerW   `toml:"heatsink_c_per_w" json:"heatsink_c_per_w"` // 0 = free air
-	Insulator       string  `toml:"insulator" json:"insulator,omitempty"`     // none | mica | silicone | unknown
-	ChassisHeatsink *bool   `toml:"chassis_heatsink" json:"chassis_heatsink,omitempty"`
-	AmbientC        Celsius `toml:"ambient_c" json:"ambient_c"`
+	HeatsinkCPerW   CPerW   `toml:"heatsink_c_per_w" json:"heatsink_c_per_w"`           // 0 = free air
+	Insulator       string  `toml:"insulator" json:"insulator,omitempty"`               // none | mica | silicone | unknown
+	ChassisHeatsink *bool   `toml:"chassis_heatsink" json:"chassis_heatsink,omitempty"` // the heat sink is bonded to chassis or ground
+	AmbientC        Celsius `toml:"ambient_c" json:"ambient_c"`                         // air around the heat sink, °C
 }
 
 // Evidence is one evidence file: every field is optional.
 type Evidence struct {
-	Ref       string                 `toml:"ref" json:"ref,omitempty"`
-	Equipment string                 `toml:"equipment" json:"equipment,omitempty"`
-	Marking   string                 `toml:"marking" json:"marking,omitempty"`
-	Package   string                 `toml:"package" json:"package,omitempty"`
-	Year      int                    `toml:"year" json:"year,omitempty"`
-	Outline   *OutlineEvidence       `toml:"outline" json:"outline,omitempty"`
-	Pins      map[string]PinEvidence `toml:"pins" json:"pins,omitempty"`
-	Case      *CaseEvidence          `toml:"case" json:"case,omitempty"`
-	Input     *InputEvidence         `toml:"input" json:"input,omitempty"`
-	Output    *OutputEvidence        `toml:"output" json:"output,omitempty"`
-	Bypass    *BypassEvidence        `toml:"bypass" json:"bypass,omitempty"`
-	Network   *NetworkEvidence       `toml:"network" json:"network,omitempty"`
-	Mount     *MountEvidence         `toml:"mount" json:"mount,omitempty"`
+	Ref       string                 `toml:"ref" json:"ref,omitempty"`             // board reference, e.g. "U4"
+	Equipment string                 `toml:"equipment" json:"equipment,omitempty"` // what it is and which board
+	Marking   string                 `toml:"marking" json:"marking,omitempty"`     // what is legible; ? one unreadable character, * any run
+	Package   string                 `toml:"package" json:"package,omitempty"`     // an outline name or alias from the catalog
+	Year      int                    `toml:"year" json:"year,omitempty"`           // year the equipment was made; 0 = unknown
+	Outline   *OutlineEvidence       `toml:"outline" json:"outline,omitempty"`     // measured outline
+	Pins      map[string]PinEvidence `toml:"pins" json:"pins,omitempty"`           // by lead number "1", "2", …
+	Case      *CaseEvidence          `toml:"case" json:"case,omitempty"`           // the tab or can
+	Input     *InputEvidence         `toml:"input" json:"input,omitempty"`         // what feeds the part
+	Output    *OutputEvidence        `toml:"output" json:"output,omitempty"`       // the regulated rail
+	Bypass    *BypassEvidence        `toml:"bypass" json:"bypass,omitempty"`       // a resistor from input to output
+	Network   *NetworkEvidence       `toml:"network" json:"network,omitempty"`     // the divider on the common/ADJ lead
+	Mount     *MountEvidence         `toml:"mount" json:"mount,omitempty"`         // how the part is cooled
 
 	// File is the name the evidence was loaded from.
 	File string `toml:"-" json:"-"`

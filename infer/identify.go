@@ -12,9 +12,9 @@ import (
 
 // Hypothesis is one thing the unknown part could be.
 type Hypothesis struct {
-	Family  *catalog.Family
-	Package *catalog.Package
-	Outline *catalog.Outline
+	Family  *catalog.Family  // the family
+	Package *catalog.Package // the package variant (one of Family.Packages)
+	Outline *catalog.Outline // the variant\'s outline; nil only if the catalog lacks it
 	// VoutV is the output voltage as a magnitude: a fixed family's nominal
 	// voltage, or what an adjustable part is set to (measured or from the
 	// divider); 0 when unknown.
@@ -43,24 +43,24 @@ func trimFloat(v float64) string {
 // of text saying where it comes from.
 type Reason struct {
 	Evidence string  `json:"evidence"` // the evidence key, e.g. "pins.2", "case", "prior"
-	Weight   float64 `json:"weight"`
-	Text     string  `json:"text"`
+	Weight   float64 `json:"weight"`   // natural-log weight; positive favours the candidate
+	Text     string  `json:"text"`     // one line of why; "" beyond Options.Explain
 }
 
 // Candidate is a scored hypothesis. Score is exactly the sum of the reasons'
 // weights.
 type Candidate struct {
 	Hypothesis
-	Score       float64
-	Probability float64
-	Reasons     []Reason
+	Score       float64  // sum of the reasons\' weights
+	Probability float64  // posterior probability, 0 to 1
+	Reasons     []Reason // the terms of Score, prior first
 }
 
 // Measurement is a suggested next measurement.
 type Measurement struct {
-	Measure  string   `json:"measure"`
-	GainBits float64  `json:"gain_bits"`
-	Outcomes []string `json:"outcomes"`
+	Measure  string   `json:"measure"`   // what to measure, in words
+	GainBits float64  `json:"gain_bits"` // expected information gain over the leaders, bits
+	Outcomes []string `json:"outcomes"`  // what each likely outcome would mean
 }
 
 // Result is the outcome of [Identify].

@@ -49,8 +49,8 @@ func (cPerW) scale() float64      { return 1 }
 // °C or °C/W); Set is false when the key was left out. In a file it may be a
 // number or a string with an SI prefix or RKM code ("4k7", "2200u", "0R22").
 type Q[U unitSpec] struct {
-	V   float64
-	Set bool
+	V   float64 // the value in the unit U; 0 when not given
+	Set bool    // the key was given
 }
 
 // Quantity types of the evidence file.

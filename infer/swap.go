@@ -37,9 +37,9 @@ type Check struct {
 // Replacement is one candidate with its checks.
 type Replacement struct {
 	Hypothesis
-	Verdict string
-	Checks  []Check
-	Install []string
+	Verdict string   // drop-in, needs-work or unsuitable
+	Checks  []Check  // every check that applies, in a fixed order
+	Install []string // install notes: lead mapping, insulator, capacitors, resistors, what to measure
 	// Deciding is the check that sets the verdict (the worst one).
 	Deciding string
 	// MinMargin is the smallest margin over the checks.
@@ -69,12 +69,12 @@ type Conditions struct {
 
 // SwapResult is the outcome of [Swap].
 type SwapResult struct {
-	Original     Hypothesis
-	Probability  float64 // of the original, when it came from Identify; 1 when named
-	FromInfer    bool
-	Replacements []Replacement
-	Conditions   Conditions
-	Assumptions  []string
+	Original     Hypothesis    // the part being replaced
+	Probability  float64       // of the original, when it came from Identify; 1 when named
+	FromInfer    bool          // the original is infer\'s leader (not named)
+	Replacements []Replacement // ranked: drop-in, needs-work, unsuitable
+	Conditions   Conditions    // the worst-corner numbers the checks used
+	Assumptions  []string      // defaults used where the evidence was silent
 	// Hidden counts unsuitable candidates left out (without All).
 	Hidden int
 }

@@ -48,16 +48,16 @@ type CornerSpec struct {
 
 // Corner is one evaluated corner.
 type Corner struct {
-	Name      string  `json:"name"`
+	Name      string  `json:"name"`       // e.g. "low mains, full load, low C"
 	Mains     float64 `json:"mains"`      // multiplier on the secondary EMF
 	CapFactor float64 `json:"cap_factor"` // multiplier on the capacitance
-	Load      Load    `json:"load"`
-	Result    Result  `json:"result"`
+	Load      Load    `json:"load"`       // the load at this corner
+	Result    Result  `json:"result"`     // the steady state at this corner
 }
 
 // CornerResult holds every corner and the two that decide the checks.
 type CornerResult struct {
-	Corners     []Corner `json:"corners"`
+	Corners     []Corner `json:"corners"`      // every corner evaluated
 	WorstTrough Corner   `json:"worst_trough"` // lowest trough: dropout
 	WorstPeak   Corner   `json:"worst_peak"`   // highest peak: input maximum
 }

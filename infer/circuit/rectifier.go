@@ -81,14 +81,14 @@ type Load struct {
 // The secondary is an ideal sine of RMS value VrmsV (per half-winding for a
 // centre tap) behind SourceOhm (winding resistance per conducting path).
 type Rectifier struct {
-	Topology  Topology
-	VrmsV     float64 // open-circuit secondary EMF, V RMS (per half for CenterTap)
-	Hz        float64 // mains frequency
-	CapF      float64 // filter capacitance, F
-	ESROhm    float64 // capacitor equivalent series resistance, Ω
-	SourceOhm float64 // winding resistance per conducting path, Ω
-	Load      Load
-	Diode     Diode // zero value: Diode1N4007
+	Topology  Topology // half-wave, centre-tap or bridge
+	VrmsV     float64  // open-circuit secondary EMF, V RMS (per half for CenterTap)
+	Hz        float64  // mains frequency
+	CapF      float64  // filter capacitance, F
+	ESROhm    float64  // capacitor equivalent series resistance, Ω
+	SourceOhm float64  // winding resistance per conducting path, Ω
+	Load      Load     // what the capacitor feeds; the zero value is no load
+	Diode     Diode    // zero value: Diode1N4007
 	// StepsPerCycle is the number of time steps per mains cycle (2000 if zero).
 	StepsPerCycle int
 }

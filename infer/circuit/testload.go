@@ -8,8 +8,8 @@ import (
 
 // Resistor is a stock resistor.
 type Resistor struct {
-	Ohms  float64 `json:"ohms"`
-	Watts float64 `json:"watts"` // rating
+	Ohms  float64 `json:"ohms"`  // value, Ω
+	Watts float64 `json:"watts"` // power rating, W
 }
 
 // DefaultRatings are the power ratings of the default stock, W.
@@ -18,19 +18,19 @@ var DefaultRatings = []float64{0.25, 0.5, 1, 2, 5, 10, 25, 50}
 // LoadPart is one resistor of a plan, with what it dissipates.
 type LoadPart struct {
 	Resistor
-	DissipationW float64 `json:"dissipation_w"`
-	Margin       float64 `json:"margin"` // 1 − dissipation/rating
+	DissipationW float64 `json:"dissipation_w"` // what it dissipates in the plan, W
+	Margin       float64 `json:"margin"`        // 1 − dissipation/rating
 }
 
 // LoadPlan is a dummy load built from stock resistors.
 type LoadPlan struct {
 	NeedOhms    float64    `json:"need_ohms"`   // the largest resistance that draws the current
 	NeedWatts   float64    `json:"need_watts"`  // what it dissipates at that resistance
-	Arrangement string     `json:"arrangement"` // "single", "2 series", "2 parallel", "3 series", "3 parallel", "2 series ∥ 1", "2 parallel + 1"
-	Parts       []LoadPart `json:"parts"`
-	TotalOhms   float64    `json:"total_ohms"`
-	CurrentA    float64    `json:"current_a"`
-	PowerW      float64    `json:"power_w"`
+	Arrangement string     `json:"arrangement"` // "single", "2 series", "2 parallel", "3 series" or "3 parallel"
+	Parts       []LoadPart `json:"parts"`       // the resistors, each with its dissipation
+	TotalOhms   float64    `json:"total_ohms"`  // the combination\'s resistance, Ω
+	CurrentA    float64    `json:"current_a"`   // what it draws at the voltage, A
+	PowerW      float64    `json:"power_w"`     // what it dissipates in all, W
 }
 
 // PlanTestLoad chooses up to three resistors from the series values (one

@@ -17,11 +17,11 @@ import (
 // 0 means the place is not known. Key is the dotted path of the key
 // concerned (with array indices, see [Index]), or "" when there is none.
 type Error struct {
-	File string
-	Line int
-	Col  int
-	Key  string
-	Err  error
+	File string // file name as given
+	Line int    // from 1; 0 = unknown
+	Col  int    // from 1, in bytes; 0 = unknown
+	Key  string // dotted key path with array indices; "" = none
+	Err  error  // what is wrong and what to do
 }
 
 // Error returns the problem on one line, "file:line:col: key: message".
