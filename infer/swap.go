@@ -368,7 +368,7 @@ func checkReplacement(c *catalog.Catalog, ev *Evidence, orig, h Hypothesis, cd *
 				add(Check{"vout", "-", fmt.Sprintf("%s%.2f V", sign, vout), -1, Fail, err.Error()})
 			} else {
 				add(Check{"vout", fmt.Sprintf("%s%.2f V with E24 %s / %s", sign, ch.VoutV, ohmsText(ch.R1Ohm), ohmsText(ch.R2Ohm)), fmt.Sprintf("%s%.2f V", sign, vout),
-					1 - math.Abs(ch.ErrorV)/(0.03*vout), Warn, fmt.Sprintf("needs a divider: R1 %s from OUT to ADJ, R2 %s from ADJ to ground (%.2f to %.2f V over the ADJ-current spread)", ohmsText(ch.R1Ohm), ohmsText(ch.R2Ohm), ch.SpreadLowV, ch.SpreadHighV)})
+					1 - math.Abs(ch.ErrorV)/(0.03*vout), Warn, fmt.Sprintf("needs a divider: R1 %s from OUT to ADJ, R2 %s from ADJ to ground (%s%.2f to %s%.2f V over the ADJ-current spread)", ohmsText(ch.R1Ohm), ohmsText(ch.R2Ohm), sign, ch.SpreadLowV, sign, ch.SpreadHighV)})
 				install = append(install, fmt.Sprintf("resistors: add R1 %s (OUT to ADJ) and R2 %s (ADJ to ground), 1 %% metal film", ohmsText(ch.R1Ohm), ohmsText(ch.R2Ohm)))
 			}
 		}
@@ -439,7 +439,7 @@ func checkReplacement(c *catalog.Catalog, ev *Evidence, orig, h Hypothesis, cd *
 	}
 	if limit > 0 {
 		m := 1 - cd.PeakV/limit
-		text := fmt.Sprintf("%.1f V at %s against the %s", cd.PeakV, cd.PeakAt, what)
+		text := fmt.Sprintf("%s%.1f V at %s against the %s", sign, cd.PeakV, cd.PeakAt, what)
 		if f.Adjustable() && cd.PeakV > f.VdiffMaxV {
 			text += fmt.Sprintf("; at power-up or into a short the whole %.1f V appears across it", cd.PeakV)
 		}
@@ -453,8 +453,12 @@ func checkReplacement(c *catalog.Catalog, ev *Evidence, orig, h Hypothesis, cd *
 	}
 	head := cd.TroughV - vout
 	dm := (head - need) / need
+	beyond := "above"
+	if f.Negative() {
+		beyond = "beyond"
+	}
 	add(Check{"dropout", fmt.Sprintf("%.2f V headroom", head), fmt.Sprintf("%.2f V needed", need), dm, status(dm, 0.1),
-		fmt.Sprintf("the input falls to %.2f V at %s; this part needs %.2f V above the %.2f V output there", cd.TroughV, cd.TroughAt, need, vout)})
+		fmt.Sprintf("the input falls to %s%.2f V at %s; this part needs %.2f V %s the %s%.2f V output there", sign, cd.TroughV, cd.TroughAt, need, beyond, sign, vout)})
 
 	// Junction temperature at the worst dissipation.
 	var pw float64

@@ -262,9 +262,13 @@ func originalLine(res *infer.SwapResult) string {
 
 func writeSwapText(w io.Writer, res *infer.SwapResult, details int) {
 	cd := res.Conditions
+	sign := ""
+	if res.Original.Family.Negative() {
+		sign = "-"
+	}
 	fmt.Fprintln(w, originalLine(res))
-	fmt.Fprintf(w, "circuit: %.2f V out, %.3g–%.3g A; input %.2f V at its lowest (%s), %.1f V at its highest (%s)\n",
-		cd.VoutV, cd.LoadMinA, cd.LoadMaxA, cd.TroughV, cd.TroughAt, cd.PeakV, cd.PeakAt)
+	fmt.Fprintf(w, "circuit: %s%.2f V out, %.3g–%.3g A; input %s%.2f V at its lowest (%s), %s%.1f V at its highest (%s)\n",
+		sign, cd.VoutV, cd.LoadMinA, cd.LoadMaxA, sign, cd.TroughV, cd.TroughAt, sign, cd.PeakV, cd.PeakAt)
 	fmt.Fprintln(w)
 	for i, r := range res.Replacements {
 		dec := ""
