@@ -184,7 +184,7 @@ type position struct {
 // Catalog is a merged set of outlines and families.
 type Catalog struct {
 	Outlines []Outline // every outline, in load order
-	Families []Family  // every family, in load order (a replacement takes the replaced one\'s place)
+	Families []Family  // every family, in load order (a replacement takes the replaced one's place)
 }
 
 // Family returns the family with the given id (case-insensitive), or nil.

@@ -9,6 +9,7 @@ import (
 	"testing"
 
 	"github.com/google/go-cmp/cmp"
+	"github.com/google/go-cmp/cmp/cmpopts"
 
 	"github.com/whichreg/whichreg/catalog"
 	"github.com/whichreg/whichreg/catalog/builtin"
@@ -51,6 +52,24 @@ func TestBuiltinLintsClean(t *testing.T) {
 		if c.Outline(o) == nil {
 			t.Errorf("outline %q missing", o)
 		}
+	}
+}
+
+// TestGeneratedMatchesTOML: the generated built-in catalog (builtin_gen.go)
+// equals what its TOML files decode to. After editing a TOML file run
+// go generate ./catalog/builtin.
+func TestGeneratedMatchesTOML(t *testing.T) {
+	decoded, errs := builtin.Decode()
+	if len(errs) > 0 {
+		t.Fatalf("built-in TOML does not load: %v", errs)
+	}
+	if lint := catalog.Lint(catalog.Merge(decoded...)); len(lint) > 0 {
+		t.Fatalf("built-in TOML does not lint clean: %v", lint)
+	}
+	gen, _ := builtin.Files()
+	opts := cmpopts.IgnoreUnexported(catalog.Outline{}, catalog.Family{})
+	if diff := cmp.Diff(decoded, gen, opts); diff != "" {
+		t.Errorf("builtin_gen.go is out of date: run go generate ./catalog/builtin (-toml +generated):\n%s", diff)
 	}
 }
 

@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"math"
 	"strings"
+
+	"github.com/whichreg/whichreg/internal/tomlpos"
 )
 
 var (
@@ -64,6 +66,9 @@ func Lint(c *Catalog, only ...string) ErrorList {
 }
 
 func (p position) add(errs *ErrorList, key, format string, args ...any) {
+	if p.ix == nil { // an entry built in Go (the generated built-in catalog) has no positions
+		p.ix = tomlpos.Index(nil)
+	}
 	k := p.path
 	if key != "" {
 		k += "." + key

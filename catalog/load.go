@@ -14,8 +14,8 @@ import (
 // File is one decoded catalog file.
 type File struct {
 	Name     string    // the name given to Load, used in messages and as Origin
-	Outlines []Outline // the file\'s outlines, in file order
-	Families []Family  // the file\'s families, in file order
+	Outlines []Outline // the file's outlines, in file order
+	Families []Family  // the file's families, in file order
 }
 
 type fileData struct {

@@ -348,14 +348,15 @@ func mutualInfo(hs []Candidate, nic float64, predict func(Hypothesis) outcomeDis
 	po := map[string]float64{}
 	total := nic
 	condEntropy := 0.0
-	for _, c := range hs {
+	for i := range hs {
+		c := &hs[i]
 		d := predict(c.Hypothesis)
 		total += c.Probability
 		for k, p := range d {
 			if p <= 0 {
 				continue
 			}
-			joint[k] = append(joint[k], weighted{c.Label(), c.Probability * p})
+			joint[k] = append(joint[k], weighted{c.name(), c.Probability * p})
 			po[k] += c.Probability * p
 			condEntropy -= c.Probability * p * math.Log2(p)
 		}

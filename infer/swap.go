@@ -71,7 +71,7 @@ type Conditions struct {
 type SwapResult struct {
 	Original     Hypothesis    // the part being replaced
 	Probability  float64       // of the original, when it came from Identify; 1 when named
-	FromInfer    bool          // the original is infer\'s leader (not named)
+	FromInfer    bool          // the original is infer's leader (not named)
 	Replacements []Replacement // ranked: drop-in, needs-work, unsuitable
 	Conditions   Conditions    // the worst-corner numbers the checks used
 	Assumptions  []string      // defaults used where the evidence was silent

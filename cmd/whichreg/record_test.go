@@ -61,3 +61,13 @@ func TestSwapJSONFields(t *testing.T) {
 		}
 	}
 }
+
+// BenchmarkInferCommand: the whole infer command in-process, catalog loading included.
+func BenchmarkInferCommand(b *testing.B) {
+	for b.Loop() {
+		app, _, _ := testApp()
+		if code := run(app, []string{"infer", "../../testdata/demo/bench-supply-negative.toml"}); code != 0 {
+			b.Fatal(code)
+		}
+	}
+}

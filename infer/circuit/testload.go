@@ -28,7 +28,7 @@ type LoadPlan struct {
 	NeedWatts   float64    `json:"need_watts"`  // what it dissipates at that resistance
 	Arrangement string     `json:"arrangement"` // "single", "2 series", "2 parallel", "3 series" or "3 parallel"
 	Parts       []LoadPart `json:"parts"`       // the resistors, each with its dissipation
-	TotalOhms   float64    `json:"total_ohms"`  // the combination\'s resistance, Ω
+	TotalOhms   float64    `json:"total_ohms"`  // the combination's resistance, Ω
 	CurrentA    float64    `json:"current_a"`   // what it draws at the voltage, A
 	PowerW      float64    `json:"power_w"`     // what it dissipates in all, W
 }
