@@ -332,3 +332,48 @@ func ExampleFind() {
 	}
 	// Output: 79xx wildcard [5 15]
 }
+
+func ExampleLoad() {
+	f, errs := catalog.Load("mine.toml", []byte(`
+[[family]]
+id = "x1"
+dropout = 2
+`))
+	fmt.Println(len(f.Families), errs[0])
+	// Output: 1 mine.toml:4:1: family[0].dropout: unknown key "dropout"; the known keys are listed in the starter file that `whichreg catalog init` writes
+}
+
+func ExampleLint() {
+	files, _ := builtin.Files()
+	mine, _ := catalog.Load("mine.toml", []byte(`
+[[family]]
+id = "my-7805"
+title = "house 7805"
+polarity = "positive"
+kind = "fixed"
+outputs_v = [5]
+tolerance = 0.04
+current_a = 1
+vin_max_v = 35
+dropout_v = 2
+iq_ma = 8
+tj_max_c = 125
+status = "active"
+commonness = 3
+source = "maker's datasheet"
+  [[family.package]]
+  outline = "TO-220"
+  pins = ["IN", "OUT"]
+  tab = "GND"
+  theta_jc = 5
+  theta_ja = 65
+`))
+	c := catalog.Merge(append(files, mine)...)
+	for _, e := range catalog.Lint(c, "mine.toml") {
+		fmt.Println(e)
+	}
+	// Output:
+	// mine.toml:19:3: family[0].package[0].pins: 2 pins given but outline TO-220 has 3 leads; list one function per lead
+	// mine.toml:19:3: family[0].package[0].pins: a fixed part needs IN, OUT and GND terminals; this pinout has IN, OUT
+	// mine.toml:20:3: family[0].package[0].tab: tab tied to GND but no lead of this pinout is GND; check the datasheet
+}

@@ -1,6 +1,7 @@
 package infer_test
 
 import (
+	"fmt"
 	"os"
 	"path/filepath"
 	"strconv"
@@ -8,6 +9,7 @@ import (
 	"testing"
 
 	"github.com/whichreg/whichreg/catalog"
+	"github.com/whichreg/whichreg/catalog/builtin"
 	"github.com/whichreg/whichreg/infer"
 )
 
@@ -126,4 +128,36 @@ func TestSwapCases(t *testing.T) {
 	if !seen["module"][infer.Fail] || !seen["module"][infer.Warn] {
 		t.Errorf("module seen as %v; want fail and warn", seen["module"])
 	}
+}
+
+func ExampleSwap() {
+	files, _ := builtin.Files()
+	c := catalog.Merge(files...)
+	ev, _ := infer.LoadEvidence("u1.toml", []byte(`
+package = "TO-220"
+[pins.1]
+wired_to = "unregulated"
+volts = 11.5
+[pins.2]
+wired_to = "ground"
+[pins.3]
+wired_to = "load"
+volts = 5.0
+[case]
+tied_to_pin = 2
+[output]
+amps = 0.5
+[mount]
+heatsink_c_per_w = 8
+insulator = "mica"
+chassis_heatsink = true
+`), c)
+	res, _ := infer.Identify(c, ev, infer.Options{Explain: 1})
+	sres, _ := infer.Swap(c, ev, res.Candidates[0].Hypothesis, res.Candidates[0].Probability, true, infer.SwapOptions{})
+	for _, r := range sres.Replacements[:2] {
+		fmt.Println(r.Label(), r.Verdict)
+	}
+	// Output:
+	// 340 TO-220 5 V drop-in
+	// 78xx TO-220 5 V drop-in
 }
