@@ -86,7 +86,15 @@ func Main() int {
 	return run(app, os.Args[1:])
 }
 
-func run(app *App, args []string) int {
+func run(app *App, args []string) (code int) {
+	// A panic is a bug in whichreg, never the user's fault: say so in one
+	// line rather than with a stack trace, and exit as for invalid input.
+	defer func() {
+		if r := recover(); r != nil {
+			fmt.Fprintf(app.IO.ErrOut, "whichreg: internal error: %v\nhint: please report it with the file and command that caused it\n", r)
+			code = exitInput
+		}
+	}()
 	root := newRootCmd(app)
 	root.SetArgs(args)
 	err := root.Execute()
