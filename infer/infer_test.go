@@ -178,7 +178,7 @@ func TestAgreeingEvidence(t *testing.T) {
 	tests := []struct {
 		file, old, new string // replace old by new ("" old: append new)
 	}{
-		{"../testdata/infer/to220-7805-plain.toml", "", "[input]\nrectifier = \"bridge\"\nsecondary_vrms = 9\nfilter_uf = 2200\n"},
+		{"../testdata/infer/to220-7805-plain.toml", "", "[outline]\nleads = 3\nmetal_can = false\n"},
 		{"../testdata/infer/to220-7805-plain.toml", "ref = ", "marking = \"LM7805CT\"\nref = "},
 		{"../testdata/demo/controller-to3-case.toml", "", "[pins.2]\nwired_to = \"unregulated\"\n"},
 		{"../testdata/demo/preamp-adjustable.toml", "marking   = \"*\"", "marking = \"LM317T\""},
