@@ -587,6 +587,18 @@ func likelihoods(h Hypothesis, ev *Evidence, op *opPoint) []Reason {
 		z := math.Abs(d-sign*want) / allowed
 		add("voltages.regulation", window(z), 0.05, "OUT − %s = %+.3f V; the %s is %+.3f V ±%.3f", f.Common(pk), d, what, sign*want, allowed)
 	}
+	if haveOut && !haveCom && !f.Adjustable() {
+		// Only the output is known: most fixed parts have their common lead
+		// at ground (then OUT reads the nominal voltage); a lifted ground
+		// reads higher (common practice, no source: 80 / 20).
+		allowed := f.Tolerance*h.VoutV + 2*(meterAbsV+meterRel*math.Abs(vout))
+		z := math.Abs(vout-sign*h.VoutV) / allowed
+		lifted := 0.002
+		if sign*vout > h.VoutV {
+			lifted = 0.2 * 0.05
+		}
+		add("voltages.output", 0.8*window(z)+lifted, 0.05, "OUT reads %+.3f V (common lead not measured); this part's output is %+.3f V ±%.3f", vout, sign*h.VoutV, allowed)
+	}
 	if haveIn && haveOut {
 		head := sign * (vin - vout)
 		drop := f.DropoutV
