@@ -33,11 +33,10 @@ func Drawing(o *Outline, p *Package) string {
 	case o != nil && o.CaseTerminal:
 		fmt.Fprintf(&b, "  (o)%s(o)   mounting holes; the can is %s\n", strings.Repeat(" ", width-2), p.Tab)
 	case o != nil && o.MetalCan:
-		fmt.Fprintf(&b, "  can tied to %s\n", p.Tab)
-	case o != nil && (o.Tab && !o.Isolated):
-		fmt.Fprintf(&b, "  %s\n  |%s|   tab: %s\n", top, center("(o)", width-1), p.Tab)
-	}
-	if o == nil || !o.CaseTerminal {
+		fmt.Fprintf(&b, "  %s\n  |%s|   can tied to %s\n  %s\n", top, center("", width-1), p.Tab, top)
+	case o != nil && o.Tab && !o.Isolated:
+		fmt.Fprintf(&b, "  %s\n  |%s|   tab: %s\n  |%s|\n  %s\n", top, center("(o)", width-1), p.Tab, center("", width-1), top)
+	default:
 		fmt.Fprintf(&b, "  %s\n  |%s|\n  %s\n", top, center("", width-1), top)
 	}
 	var leads, nums, fns strings.Builder
