@@ -377,3 +377,16 @@ source = "maker's datasheet"
 	// mine.toml:19:3: family[0].package[0].pins: a fixed part needs IN, OUT and GND terminals; this pinout has IN, OUT
 	// mine.toml:20:3: family[0].package[0].tab: tab tied to GND but no lead of this pinout is GND; check the datasheet
 }
+
+// TestDrawings pins the pinout figure of every built-in package variant.
+func TestDrawings(t *testing.T) {
+	c := builtinCatalog(t)
+	var b strings.Builder
+	for _, f := range c.Sorted() {
+		for i := range f.Packages {
+			p := &f.Packages[i]
+			fmt.Fprintf(&b, "== %s %s\n%s", f.ID, p.Outline, catalog.Drawing(c.Outline(p.Outline), p))
+		}
+	}
+	golden.Check(t, "../testdata/catalog/drawings.golden", b.String(), *update)
+}
