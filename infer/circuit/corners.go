@@ -5,12 +5,23 @@ import (
 	"math"
 )
 
-// WindingFormFactor is the ratio of RMS winding current to DC load current
-// used by [FromRegulation]: from the ngspice reference runs in
-// shared/reference/methods.md §7 (bridge brA_50 1.559 A / 0.843 A = 1.85;
-// centre tap ctA_50 1.183 A / 0.900 A = 1.31 per half; half-wave hwA_50
-// 1.860 A / 0.786 A = 2.37). It varies with ωCR and Rs/RL; these are typical.
-var WindingFormFactor = map[Topology]float64{Bridge: 1.85, CenterTap: 1.31, HalfWave: 2.37}
+// WindingFormFactor returns the ratio of RMS winding current to DC load
+// current used by [FromRegulation], or 0 for an unknown topology: from the
+// ngspice reference runs in shared/reference/methods.md §7 (bridge brA_50
+// 1.559 A / 0.843 A = 1.85; centre tap ctA_50 1.183 A / 0.900 A = 1.31 per
+// half; half-wave hwA_50 1.860 A / 0.786 A = 2.37). It varies with ωCR and
+// Rs/RL; these are typical.
+func WindingFormFactor(t Topology) float64 {
+	switch t {
+	case Bridge:
+		return 1.85
+	case CenterTap:
+		return 1.31
+	case HalfWave:
+		return 2.37
+	}
+	return 0
+}
 
 // FromRegulation turns a transformer's loaded secondary voltage and its
 // regulation into the open-circuit EMF and winding resistance of the model:
@@ -31,7 +42,7 @@ func FromRegulation(t Topology, vrmsLoadedV, regulation, loadA float64) (emfV, r
 	if !(loadA > 0) {
 		return 0, 0, fmt.Errorf("regulation needs the load current the secondary was measured at")
 	}
-	f := WindingFormFactor[t]
+	f := WindingFormFactor(t)
 	if f == 0 {
 		return 0, 0, fmt.Errorf("unknown rectifier %q", t)
 	}
