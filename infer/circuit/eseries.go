@@ -24,17 +24,17 @@ var (
 		8.25, 8.45, 8.66, 8.87, 9.09, 9.31, 9.53, 9.76}
 )
 
-// Series returns the decade table named "E12", "E24", "E48" or "E96".
+// Series returns a copy of the decade table named "E12", "E24", "E48" or "E96".
 func Series(name string) ([]float64, error) {
 	switch strings.ToUpper(name) {
 	case "E12":
-		return E12, nil
+		return append([]float64(nil), E12...), nil
 	case "E24":
-		return E24, nil
+		return append([]float64(nil), E24...), nil
 	case "E48":
-		return E48, nil
+		return append([]float64(nil), E48...), nil
 	case "E96":
-		return E96, nil
+		return append([]float64(nil), E96...), nil
 	}
 	return nil, fmt.Errorf("unknown resistor series %q (use E12, E24, E48 or E96)", name)
 }
