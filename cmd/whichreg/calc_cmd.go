@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"strings"
 
 	"github.com/spf13/cobra"
 
@@ -22,6 +23,23 @@ SI prefixes and IEC 60062 RKM code: 4k7, 0R22, 2u2, 2200u, 330m, 1.6A.`,
 	cmd.AddCommand(newCalcRectifierCmd(app, nil), newCalcBoostCmd(app, nil), newCalcHeatsinkCmd(app, nil),
 		newCalcDividerCmd(app, nil), newCalcTestloadCmd(app, nil))
 	return cmd
+}
+
+// requireFlags returns a usage error naming every one of the flags that was not given.
+func requireFlags(cmd *cobra.Command, names ...string) error {
+	var missing []string
+	for _, n := range names {
+		if !cmd.Flags().Changed(n) {
+			missing = append(missing, "--"+n)
+		}
+	}
+	if len(missing) == 0 {
+		return nil
+	}
+	if len(missing) == 1 {
+		return flagErrorf("%s is required", missing[0])
+	}
+	return flagErrorf("%s and %s are required", strings.Join(missing[:len(missing)-1], ", "), missing[len(missing)-1])
 }
 
 type calcRectifierOptions struct {
@@ -71,8 +89,8 @@ With --spice it prints an ngspice netlist of the nominal case instead.`,
 			if cmd.Flags().Changed("load") == cmd.Flags().Changed("rload") {
 				return flagErrorf("give the load as --load AMPS (a regulator) or --rload OHMS (a resistor), one of them")
 			}
-			if !cmd.Flags().Changed("vrms") || !cmd.Flags().Changed("cap") {
-				return flagErrorf("--vrms and --cap are required")
+			if err := requireFlags(cmd, "vrms", "cap"); err != nil {
+				return err
 			}
 			if runF != nil {
 				return runF(opts)
@@ -213,10 +231,8 @@ rises. Give the input at its lowest (ripple trough, low mains) and highest
 		Example: `  whichreg calc boost --r 4R7 --vin-min 11 --vin-max 16 --vout 5 --load-min 1.5 --load-max 3`,
 		Args:    cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, args []string) error {
-			for _, f := range []string{"r", "vin-min", "vin-max", "vout"} {
-				if !cmd.Flags().Changed(f) {
-					return flagErrorf("--%s is required", f)
-				}
+			if err := requireFlags(cmd, "r", "vin-min", "vin-max", "vout"); err != nil {
+				return err
 			}
 			if runF != nil {
 				return runF(opts)
@@ -477,8 +493,8 @@ voltage they draw at least the given current, each run at no more than
   whichreg calc testload --volts 12 --amps 0.6 --derating 0.6`,
 		Args: cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, args []string) error {
-			if !cmd.Flags().Changed("volts") || !cmd.Flags().Changed("amps") {
-				return flagErrorf("--volts and --amps are required")
+			if err := requireFlags(cmd, "volts", "amps"); err != nil {
+				return err
 			}
 			if runF != nil {
 				return runF(opts)
