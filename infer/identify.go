@@ -140,14 +140,14 @@ func window(z float64) float64 {
 
 // opPoint holds what the evidence says about the circuit, shared by all hypotheses.
 type opPoint struct {
-	input       *Operating // the input model (peak only), shared with replacement
-	fuzzyHit    map[string]bool
-	marking     string // normalised
-	legible     bool
-	nLegible    int // legible characters of the marking
-	matches     map[markKey]markMatch
-	expansions  map[*catalog.Family][]catalog.Expansion
-	text        bool // format reason texts
+	input      *Operating // the input model (peak only), shared with replacement
+	fuzzyHit   map[string]bool
+	marking    string // normalised
+	legible    bool
+	nLegible   int // legible characters of the marking
+	matches    map[markKey]markMatch
+	expansions map[*catalog.Family][]catalog.Expansion
+	text       bool // format reason texts
 }
 
 // markKey and markMatch cache the marking match of a family at a voltage.
