@@ -131,13 +131,13 @@ type InputKind string
 
 // The input words.
 const (
-	InputBridge    InputKind = "bridge"
-	InputCenterTap InputKind = "center-tap"
-	InputHalfWave  InputKind = "half-wave"
-	InputDC        InputKind = "dc" // a battery or another regulated supply
+	RectifierBridge    InputKind = "bridge"
+	RectifierCenterTap InputKind = "center-tap"
+	RectifierHalfWave  InputKind = "half-wave"
+	RectifierDC        InputKind = "dc" // a battery or another regulated supply
 )
 
-var inputKinds = vocab[InputKind]{"rectifier", []InputKind{InputBridge, InputCenterTap, InputHalfWave, InputDC}}
+var inputKinds = vocab[InputKind]{"rectifier", []InputKind{RectifierBridge, RectifierCenterTap, RectifierHalfWave, RectifierDC}}
 
 // String returns the word.
 func (k InputKind) String() string { return string(k) }
@@ -153,7 +153,7 @@ func (k *InputKind) UnmarshalText(b []byte) (err error) {
 
 // DC reports whether the part is fed from a DC supply rather than a
 // rectifier. It is the one place that knows "dc" is not a topology.
-func (k InputKind) DC() bool { return k == InputDC }
+func (k InputKind) DC() bool { return k == RectifierDC }
 
 // Topology returns the rectifier topology, and false for a DC supply or an
 // input that is not given.
