@@ -150,6 +150,9 @@ func Swap(c *catalog.Catalog, ev *Evidence, orig Hypothesis, prob float64, fromI
 	res := &SwapResult{Original: orig, Probability: prob, FromInfer: fromInfer, Conditions: cd, Assumptions: as}
 	var all []Replacement
 	for _, f := range c.Sorted() {
+		if f.NonRegulator() {
+			continue // a transistor or switching IC is never a replacement
+		}
 		for i := range f.Packages {
 			p := &f.Packages[i]
 			if !opts.All && f.StatusOf(p) != "active" {
