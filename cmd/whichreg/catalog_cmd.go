@@ -296,14 +296,14 @@ legible characters follow.`,
 	return cmd
 }
 
-// findHitJSON is one hit of `catalog find --format json`.
+// findHitJSON is one hit of `catalog find --format json` (contract:
+// id, kind, vout_v, outline, score, detail).
 type findHitJSON struct {
 	ID      string    `json:"id"`
-	Title   string    `json:"title"`
-	How     string    `json:"how"`
-	Pattern string    `json:"pattern"`
+	Kind    string    `json:"kind"`
 	VoutV   []float64 `json:"vout_v"`
-	Score   int       `json:"score"`
+	Outline string    `json:"outline"`
+	Score   float64   `json:"score"`
 	Detail  string    `json:"detail"`
 }
 
@@ -321,9 +321,9 @@ func catalogFindRun(opts *catalogFindOptions) error {
 			if v == nil {
 				v = []float64{}
 			}
-			res = append(res, findHitJSON{h.Family.ID, h.Family.Title, h.How, h.Pattern, v, h.Score, h.Detail})
+			res = append(res, findHitJSON{h.Family.ID, string(h.Family.Kind), v, h.Outline, h.Score, h.Detail})
 		}
-		return writeJSON(out, map[string]any{"query": opts.Pattern, "hits": res})
+		return writeJSON(out, map[string]any{"schema": "whichreg/catalog-find/v1", "query": opts.Pattern, "hits": res})
 	}
 	if len(hits) == 0 {
 		fmt.Fprintf(out, "no family matches %q\n", opts.Pattern)
