@@ -35,7 +35,7 @@ func FuzzSet(f *testing.F) {
 		}
 		f.Add(data, uint8(i), "x", 1.5, uint8(i))
 	}
-	f.Add([]byte(evidence), uint8(0), "", -0.0, uint8(3))
+	f.Add([]byte(evidence), uint8(0), "", math.Copysign(0, -1), uint8(3))
 	f.Add([]byte("a = [\n 1, # c\n]\n[b]\nc = '''\n[x]\n'''\n"), uint8(8), "y", 2.0, uint8(1))
 	f.Fuzz(func(t *testing.T, doc []byte, keyIx uint8, s string, x float64, kind uint8) {
 		if len(doc) > 4096 {

@@ -10,10 +10,10 @@ import (
 type stmtKind int
 
 const (
-	stmtTrivia      stmtKind = iota // blank lines and comment lines
-	stmtTable                       // [a.b]
-	stmtArrayTable                  // [[a.b]]
-	stmtKeyVal                      // key = value
+	stmtTrivia     stmtKind = iota // blank lines and comment lines
+	stmtTable                      // [a.b]
+	stmtArrayTable                 // [[a.b]]
+	stmtKeyVal                     // key = value
 )
 
 // stmt is one statement of the document: whole lines from start to end
@@ -262,7 +262,7 @@ func (l *lexer) value() error {
 	return nil
 }
 
-// multiline reads a """…""" or '''…''' string, which may span lines.
+// multiline reads a """…""" or ”'…”' string, which may span lines.
 func (l *lexer) multiline(delim string) error {
 	i := l.pos + 3
 	for i < len(l.src) {
