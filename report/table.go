@@ -74,21 +74,6 @@ func (t *Table) natural(i int) int {
 	return n
 }
 
-// longestWord returns the widest single word of column i.
-func (t *Table) longestWord(i int) int {
-	n := 0
-	for _, r := range append([][]string{{t.Columns[i].Header}}, t.rows...) {
-		cell := r[0]
-		if len(r) > i {
-			cell = r[i]
-		}
-		for _, w := range strings.Fields(cell) {
-			n = max(n, Width(w))
-		}
-	}
-	return n
-}
-
 // layout returns column widths that fit width using the columns in use,
 // and whether it succeeded.
 func (t *Table) layout(width int, use []bool) ([]int, bool) {

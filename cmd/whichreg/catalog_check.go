@@ -52,11 +52,11 @@ func catalogCheckRun(opts *catalogCheckOptions) error {
 		names = opts.app.catalogSources()
 	}
 	for _, n := range names {
-		data, err := readLimited(n, "catalog", maxCatalogBytes)
+		data, err := opts.app.readLimited(n, "catalog", maxCatalogBytes)
 		if err != nil {
 			return err
 		}
-		f, e := catalog.Load(n, data)
+		f, e := catalog.Load(displayName(n), data)
 		errs = append(errs, e...)
 		files = append(files, f)
 	}

@@ -6,15 +6,16 @@ import (
 )
 
 type catalogInitOptions struct {
-	app  *App
-	File string
+	app   *App
+	File  string
+	Force bool
 }
 
 func newCatalogInitCmd(app *App, runF func(*catalogInitOptions) error) *cobra.Command {
 	opts := &catalogInitOptions{app: app}
 	cmd := &cobra.Command{
 		Use:   "init [FILE]",
-		Short: "Write a commented starter catalog (to stdout, or to FILE; never overwrites)",
+		Short: "Write a commented starter catalog (to stdout, or to FILE; --force to replace it)",
 		Example: `  whichreg catalog init my-parts.toml
   whichreg catalog check my-parts.toml`,
 		Args: cobra.MaximumNArgs(1),
@@ -25,8 +26,9 @@ func newCatalogInitCmd(app *App, runF func(*catalogInitOptions) error) *cobra.Co
 			if runF != nil {
 				return runF(opts)
 			}
-			return writeOut(opts.app, opts.File, []byte(catalog.StarterFile), false)
+			return writeOut(opts.app, opts.File, []byte(catalog.StarterFile), opts.Force)
 		},
 	}
+	cmd.Flags().BoolVar(&opts.Force, "force", false, "replace FILE if it exists")
 	return cmd
 }

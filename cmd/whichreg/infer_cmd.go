@@ -22,7 +22,7 @@ type inferOptions struct {
 func newInferCmd(app *App, runF func(*inferOptions) error) *cobra.Command {
 	opts := &inferOptions{app: app}
 	cmd := &cobra.Command{
-		Use:   "infer EVIDENCE.toml",
+		Use:   "infer EVIDENCE.toml|-",
 		Short: "Rank what an unmarked regulator could be, with probabilities and reasons",
 		Long: `infer ranks every (family, package, output voltage) in the catalog against what
 you measured. Each candidate's score is the sum of its reasons: a prior
@@ -31,7 +31,8 @@ likelihood ratio against a part about which nothing is known. "Not in the
 catalog" is always listed: if it leads, the evidence fits nothing known.
 Then it lists the measurements that would best separate the leaders.`,
 		Example: `  whichreg infer testdata/demo/bench-supply-negative.toml
-  whichreg infer board.toml --top 10 --format json`,
+  whichreg infer board.toml --top 10 --format json
+  whichreg infer - < board.toml`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			opts.File = args[0]
@@ -45,7 +46,7 @@ Then it lists the measurements that would best separate the leaders.`,
 		},
 	}
 	addFormatFlag(cmd, &opts.Format, "text", "json", "markdown")
-	cmd.Flags().IntVar(&opts.Top, "top", 0, "candidates to list (0 = 8 in text and markdown, all in JSON)")
+	cmd.Flags().IntVar(&opts.Top, "top", 0, "list the `N` leading candidates (0 = 8 in text and markdown, every one in JSON)")
 	cmd.Flags().IntVar(&opts.Why, "why", 3, "show the reasons of this many leaders (text and markdown)")
 	return cmd
 }
@@ -172,7 +173,7 @@ func title(ev *infer.Evidence) string {
 }
 
 func writeInferText(w io.Writer, ev *infer.Evidence, res *infer.Result, top, why int) {
-	fmt.Fprintf(w, "%s (%s)\n", title(ev), ev.File)
+	fmt.Fprintln(w, title(ev))
 	if res.PriorOnly {
 		fmt.Fprintln(w, "No evidence bears on the ranking: candidates are ranked by prior (commonness and era) alone.")
 	}
