@@ -115,7 +115,7 @@ const (
 )
 
 // wiredLikelihood is P(wired_to word | lead function).
-var wiredLikelihood = map[string]map[string]float64{
+var wiredLikelihood = map[string]map[Wiring]float64{
 	catalog.PinIn:  {WiredUnregulated: 0.90, WiredNetwork: 0.02, WiredLoad: 0.02, WiredGround: 0.03, WiredOpen: 0.03},
 	catalog.PinOut: {WiredLoad: 0.86, WiredNetwork: 0.10, WiredUnregulated: 0.02, WiredGround: 0.01, WiredOpen: 0.01},
 	catalog.PinGnd: {WiredGround: 0.80, WiredNetwork: 0.15, WiredLoad: 0.02, WiredUnregulated: 0.015, WiredOpen: 0.015},
@@ -140,16 +140,14 @@ func window(z float64) float64 {
 
 // opPoint holds what the evidence says about the circuit, shared by all hypotheses.
 type opPoint struct {
-	peakV       float64 // highest input at high mains, light load; 0 = unknown
-	peakFrom    string
-	assumptions []string
-	fuzzyHit    map[string]bool
-	marking     string // normalised
-	legible     bool
-	nLegible    int // legible characters of the marking
-	matches     map[markKey]markMatch
-	expansions  map[*catalog.Family][]catalog.Expansion
-	text        bool // format reason texts
+	input      *Operating // the input model (peak only), shared with replacement
+	fuzzyHit   map[string]bool
+	marking    string // normalised
+	legible    bool
+	nLegible   int // legible characters of the marking
+	matches    map[markKey]markMatch
+	expansions map[*catalog.Family][]catalog.Expansion
+	text       bool // format reason texts
 }
 
 // markKey and markMatch cache the marking match of a family at a voltage.
@@ -188,7 +186,7 @@ func Identify(c *catalog.Catalog, ev *Evidence, opts Options) (*Result, error) {
 			}
 		}
 	}
-	res := &Result{Assumptions: op.assumptions, InputPeakV: op.peakV}
+	res := &Result{Assumptions: op.input.Assumptions, InputPeakV: op.input.Peak.V}
 	cands := make([]Candidate, len(hyps))
 	priorMass := 0.0
 	evidenceUsed := false
@@ -261,7 +259,7 @@ func Identify(c *catalog.Catalog, ev *Evidence, opts Options) (*Result, error) {
 	return res, nil
 }
 
-// operatingPoint works out the input peak from the [input] table.
+// operatingPoint prepares the marking matches and the input model.
 func operatingPoint(c *catalog.Catalog, ev *Evidence) (*opPoint, error) {
 	op := &opPoint{marking: catalog.NormalizeMarking(ev.Marking), matches: map[markKey]markMatch{}, expansions: map[*catalog.Family][]catalog.Expansion{}}
 	op.legible = catalog.Legible(op.marking)
@@ -272,94 +270,12 @@ func operatingPoint(c *catalog.Catalog, ev *Evidence) (*opPoint, error) {
 			op.fuzzyHit[h.Family.ID] = true
 		}
 	}
-	in := ev.Input
-	if in == nil {
-		return op, nil
-	}
-	if !in.MainsTolerance.Set {
-		op.assumptions = append(op.assumptions, "mains tolerance ±10 % (IEC 60038) assumed")
-	}
-	if in.Rectifier == "dc" {
-		op.peakV = math.Abs(in.DCVolts.V)
-		op.peakFrom = "the DC supply"
-		return op, nil
-	}
-	// Identification needs only the highest input: high mains, light load.
-	r, light, ok, err := rectifierModel(ev, &op.assumptions)
+	in, err := OperatingPoint(ev, OperatingOptions{Sweep: SweepPeak})
 	if err != nil {
 		return nil, err
 	}
-	if ok {
-		r.VrmsV *= 1 + in.MainsTolerance.Or(0.10)
-		r.CapF *= 0.8 // the capacitor's −20 % corner, as swap's worst peak
-		r.Load = circuit.Load{Amps: light}
-		// Half the usual time steps: the peak comes out within about 0.1 %,
-		// far finer than the 5 % steps of the input-maximum likelihood.
-		r.StepsPerCycle = 1000
-		res, err := r.Solve()
-		if err != nil {
-			return nil, fmt.Errorf("%s: [input]: %v", ev.File, err)
-		}
-		op.peakV = res.PeakV
-		op.peakFrom = "the rectifier model at high mains, light load, low C"
-	}
+	op.input = in
 	return op, nil
-}
-
-// rectifierModel builds the [input] rectifier at nominal mains and full
-// load, when the evidence describes it, and returns the light load too.
-// ok is false when it does not describe it.
-func rectifierModel(ev *Evidence, assumptions *[]string) (r circuit.Rectifier, light float64, ok bool, err error) {
-	in := ev.Input
-	if in == nil || in.Rectifier == "" || in.Rectifier == "dc" || !in.SecondaryVrms.Set || !in.FilterUF.Set {
-		return r, 0, false, nil
-	}
-	top, err := circuit.ParseTopology(in.Rectifier)
-	if err != nil {
-		return r, 0, false, err
-	}
-	load := 0.0
-	if ev.Output != nil {
-		load = ev.Output.Amps.V
-		light = ev.Output.MinAmps.V
-	}
-	if load <= 0 {
-		load = 0.1
-		*assumptions = append(*assumptions, "load 0.1 A assumed for the transformer model (no [output] amps)")
-	}
-	if ev.Output == nil || !ev.Output.MinAmps.Set {
-		*assumptions = append(*assumptions, "light load taken as no load (no [output] min_amps)")
-	}
-	reg := in.SecondaryRegulation.Or(0.10)
-	if !in.SecondaryRegulation.Set {
-		*assumptions = append(*assumptions, "transformer regulation 10 % assumed")
-	}
-	hz := in.MainsHz.Or(50)
-	if !in.MainsHz.Set {
-		*assumptions = append(*assumptions, "50 Hz mains assumed")
-	}
-	emf, rs, err := circuit.FromRegulation(top, in.SecondaryVrms.V, reg, load)
-	if err != nil {
-		return r, 0, false, err
-	}
-	*assumptions = append(*assumptions, "filter capacitor ESR 0.05 Ω and 1N4007-class diodes assumed")
-	r = circuit.Rectifier{Topology: top, VrmsV: emf, Hz: hz, CapF: in.FilterUF.V * 1e-6, ESROhm: 0.05, SourceOhm: rs, Load: circuit.Load{Amps: load}}
-	return r, light, true, nil
-}
-
-// rectifierCorners solves the [input] rectifier at its corners when the
-// evidence describes it. ok is false when it does not.
-func rectifierCorners(ev *Evidence, assumptions *[]string) (circuit.CornerResult, *circuit.Rectifier, bool, error) {
-	r, light, ok, err := rectifierModel(ev, assumptions)
-	if err != nil || !ok {
-		return circuit.CornerResult{}, nil, false, err
-	}
-	cr, err := r.Corners(circuit.CornerSpec{MainsTol: ev.Input.MainsTolerance.Or(0.10), CapTol: 0.20,
-		LoadMin: circuit.Load{Amps: light}, LoadMax: r.Load})
-	if err != nil {
-		return circuit.CornerResult{}, nil, false, fmt.Errorf("%s: [input]: %v", ev.File, err)
-	}
-	return cr, &r, true, nil
 }
 
 // terminalVolts maps the measured voltages onto the hypothesis's terminal
@@ -649,11 +565,11 @@ func likelihoods(h Hypothesis, ev *Evidence, op *opPoint) []Reason {
 		}
 	}
 	// Input peak against the input maximum.
-	peak, from := op.peakV, op.peakFrom
-	if peak == 0 && haveIn {
-		peak = math.Abs(vin) * 1.1 * 1.1
-		from = "the measured input +10 % mains +10 % light-load rise"
+	inPeak := op.input.Peak
+	if haveIn {
+		inPeak = op.input.PeakFor(vin)
 	}
+	peak, from := inPeak.V, inPeak.At
 	if peak > 0 {
 		limit := f.VinMax(h.VoutV)
 		what := "input maximum"

@@ -86,9 +86,9 @@ type SwapOptions struct {
 	All bool
 }
 
-// Conditions works out the operating conditions of the original's circuit.
+// conditions works out the operating conditions of the original's circuit
+// from the one input model ([OperatingPoint]).
 func conditions(ev *Evidence, orig Hypothesis) (Conditions, []string, error) {
-	var as []string
 	cd := Conditions{VoutV: orig.VoutV}
 	tv := terminalVolts(orig, ev)
 	if v, ok := tv[catalog.PinOut]; ok && math.Abs(v) > 0 {
@@ -97,18 +97,23 @@ func conditions(ev *Evidence, orig Hypothesis) (Conditions, []string, error) {
 	if cd.VoutV == 0 {
 		return cd, nil, fmt.Errorf("the output voltage is unknown: give the OUT lead's volts or the [network] resistors")
 	}
-	rating := orig.Family.Current(orig.Package)
-	if ev.Output != nil && ev.Output.Amps.Set {
-		cd.LoadMaxA = ev.Output.Amps.V
-	} else {
-		cd.LoadMaxA = rating
-		as = append(as, fmt.Sprintf("load not given: the original's rating %.3g A taken as the full load", rating))
+	opp, err := OperatingPoint(ev, OperatingOptions{Sweep: SweepAll, AssumedLoadA: orig.Family.Current(orig.Package)})
+	if err != nil {
+		return cd, nil, err
 	}
-	if ev.Output != nil && ev.Output.MinAmps.Set {
-		cd.LoadMinA = ev.Output.MinAmps.V
-	} else {
-		as = append(as, "lightest load not given: no load assumed")
+	op := *opp
+	if vin, ok := tv[catalog.PinIn]; ok {
+		op = op.FromReading(vin)
 	}
+	if op.Source == InputUnknown {
+		return cd, nil, fmt.Errorf("the input voltage is unknown: give the IN lead's volts or the [input] rectifier, secondary and filter")
+	}
+	as := op.Assumptions
+	cd.LoadMaxA, cd.LoadMinA = op.LoadMaxA, op.LoadMinA
+	cd.TroughV, cd.TroughAt = op.Trough.V, op.Trough.At
+	cd.PeakV, cd.PeakAt = op.Peak.V, op.Peak.At
+	cd.HotInV = op.MeanHigh.V
+	cd.Corners, cd.Rectifier = op.Corners, op.Rectifier
 	if ev.Bypass != nil {
 		cd.BypassOhm = ev.Bypass.Ohms.V
 	}
@@ -121,7 +126,7 @@ func conditions(ev *Evidence, orig Hypothesis) (Conditions, []string, error) {
 	}
 	if m != nil {
 		cd.HeatsinkCW = m.HeatsinkCPerW.V
-		cd.Insulator = m.Insulator
+		cd.Insulator = string(m.Insulator)
 		cd.Grounded = m.ChassisHeatsink != nil && *m.ChassisHeatsink
 	}
 	if m == nil || !m.HeatsinkCPerW.Set {
@@ -129,50 +134,6 @@ func conditions(ev *Evidence, orig Hypothesis) (Conditions, []string, error) {
 	}
 	if cd.Insulator == "" {
 		cd.Insulator = "unknown"
-	}
-	tol := 0.10
-	if ev.Input != nil && ev.Input.MainsTolerance.Set {
-		tol = ev.Input.MainsTolerance.V
-	}
-	var cornerAs []string
-	cr, rc, ok, err := rectifierCorners(ev, &cornerAs)
-	if err != nil {
-		return cd, nil, err
-	}
-	vin, haveIn := tv[catalog.PinIn]
-	switch {
-	case ev.Input != nil && ev.Input.Rectifier == "dc":
-		v := math.Abs(ev.Input.DCVolts.V)
-		cd.TroughV, cd.PeakV, cd.HotInV = v, v, v
-		cd.TroughAt, cd.PeakAt = "the DC supply", "the DC supply"
-	case ok:
-		as = append(as, cornerAs...)
-		cd.Corners = &cr
-		cd.TroughV, cd.TroughAt = cr.WorstTrough.Result.TroughV, cr.WorstTrough.Name
-		cd.PeakV, cd.PeakAt = cr.WorstPeak.Result.PeakV, cr.WorstPeak.Name
-		for _, c := range cr.Corners {
-			if c.Mains > 1 && c.Load.Amps == cd.LoadMaxA && c.CapFactor == 1 {
-				cd.HotInV = c.Result.MeanV
-			}
-		}
-		if cd.HotInV == 0 {
-			cd.HotInV = cd.PeakV
-		}
-		cd.Rectifier = rc
-	case haveIn:
-		v := math.Abs(vin)
-		cd.TroughV, cd.TroughAt = v*(1-tol)*0.95, "the measured input less the mains tolerance and 5 % ripple"
-		cd.PeakV, cd.PeakAt = v*(1+tol)*1.1, "the measured input plus the mains tolerance and a 10 % light-load rise"
-		cd.HotInV = v * (1 + tol)
-		as = append(as, "no rectifier described: the input corners are scaled from the measured input voltage")
-	default:
-		return cd, nil, fmt.Errorf("the input voltage is unknown: give the IN lead's volts or the [input] rectifier, secondary and filter")
-	}
-	if ev.Input != nil && ev.Input.TroughVolts.Set {
-		t := math.Abs(ev.Input.TroughVolts.V) * (1 - tol)
-		if cd.TroughAt == "" || t < cd.TroughV || !ok {
-			cd.TroughV, cd.TroughAt = t, "the measured trough less the mains tolerance"
-		}
 	}
 	return cd, as, nil
 }
@@ -189,6 +150,9 @@ func Swap(c *catalog.Catalog, ev *Evidence, orig Hypothesis, prob float64, fromI
 	res := &SwapResult{Original: orig, Probability: prob, FromInfer: fromInfer, Conditions: cd, Assumptions: as}
 	var all []Replacement
 	for _, f := range c.Sorted() {
+		if f.NonRegulator() {
+			continue // a transistor or switching IC is never a replacement
+		}
 		for i := range f.Packages {
 			p := &f.Packages[i]
 			if !opts.All && f.StatusOf(p) != "active" {
@@ -650,7 +614,7 @@ func coutCheck(f *catalog.Family, ev *Evidence) (Check, bool) {
 		}
 		return Check{"cout", "unknown", coutLimit(req), 0, Warn, "the board's output capacitor is not described: " + coutAdvice(f)}, true
 	}
-	uf, kind := out.CapUF.V, out.CapType
+	uf, kind := out.CapUF.V, string(out.CapType)
 	if kind == "none" {
 		uf = 0
 	}

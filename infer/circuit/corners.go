@@ -98,16 +98,12 @@ func (r Rectifier) Corners(spec CornerSpec) (CornerResult, error) {
 				if c.f == 1 && c.name == "low C" {
 					continue
 				}
-				rc := r
-				rc.VrmsV *= m.f
-				rc.CapF *= c.f
-				rc.Load = l.load
-				name := m.name + ", " + l.name + ", " + c.name
-				res, err := rc.Solve()
+				cn := Corner{Name: m.name + ", " + l.name + ", " + c.name, Mains: m.f, CapFactor: c.f, Load: l.load}
+				res, err := r.At(cn).Solve()
 				if err != nil {
-					return CornerResult{}, fmt.Errorf("%s: %w", name, err)
+					return CornerResult{}, fmt.Errorf("%s: %w", cn.Name, err)
 				}
-				cn := Corner{Name: name, Mains: m.f, CapFactor: c.f, Load: l.load, Result: res}
+				cn.Result = res
 				out.Corners = append(out.Corners, cn)
 				if first || res.TroughV < out.WorstTrough.Result.TroughV {
 					out.WorstTrough = cn

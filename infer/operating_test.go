@@ -1,0 +1,79 @@
+package infer_test
+
+import (
+	"math"
+	"strings"
+	"testing"
+
+	"github.com/whichreg/whichreg/infer"
+)
+
+// TestOperatingPeakAgrees: identification (the peak corners only) and
+// replacement (the whole sweep) see the same highest input, since both use
+// the one input model.
+func TestOperatingPeakAgrees(t *testing.T) {
+	c := builtinCatalog(t)
+	for _, name := range []string{"../testdata/demo/bench-supply-negative.toml", "../testdata/swap/adj-vin-max.toml", "../testdata/swap/lifted-ground-ldo.toml"} {
+		ev := load(t, c, name)
+		id, err := infer.OperatingPoint(ev, infer.OperatingOptions{Sweep: infer.SweepPeak})
+		if err != nil {
+			t.Fatal(err)
+		}
+		sw, err := infer.OperatingPoint(ev, infer.OperatingOptions{Sweep: infer.SweepAll, AssumedLoadA: 1})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if id.Source != infer.InputRectifier || math.Abs(id.Peak.V-sw.Peak.V) > 1e-9 {
+			t.Errorf("%s: identification peak %v, replacement peak %v", name, id.Peak, sw.Peak)
+		}
+		if sw.Trough.V >= sw.Nominal.TroughV || sw.MeanLow.V >= sw.MeanHigh.V {
+			t.Errorf("%s: worst trough %v not below nominal %v, or mean range %v..%v reversed", name, sw.Trough, sw.Nominal, sw.MeanLow, sw.MeanHigh)
+		}
+	}
+}
+
+// TestOperatingFromReading checks the bounds from a bare 11.3 V reading at
+// ±10 % mains against a hand calculation with the stated assumptions (20 %
+// ripple, 1.5 V drop at full load, 1.0 V at light load, 10 % transformer
+// rise, −20 % capacitor; common practice, no source):
+//
+//	ripple 2.26 V; crest 11.3 + 1.13 + 1.5 = 13.93 V
+//	peak   13.93 × 1.1 × 1.1 − 1.0          = 15.8553 V
+//	trough 13.93 × 0.9 − 1.5 − 2.26 / 0.8   = 8.212 V
+func TestOperatingFromReading(t *testing.T) {
+	c := builtinCatalog(t)
+	ev := load(t, c, "../testdata/demo/controller-to3-case.toml")
+	ev.Input = nil
+	op, err := infer.OperatingPoint(ev, infer.OperatingOptions{Sweep: infer.SweepAll, AssumedLoadA: 1.5})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if op.Source != infer.InputUnknown || !op.LoadAssumed || op.LoadMaxA != 1.5 {
+		t.Fatalf("before a reading: %+v", op)
+	}
+	r := op.FromReading(-11.3)
+	if r.Source != infer.InputReading {
+		t.Fatalf("source %s", r.Source)
+	}
+	if math.Abs(r.Peak.V-15.8553) > 1e-6 || math.Abs(r.Trough.V-8.212) > 1e-6 {
+		t.Errorf("peak %.4f trough %.4f, want 15.8553 and 8.212", r.Peak.V, r.Trough.V)
+	}
+	if len(r.Assumptions) <= len(op.Assumptions) {
+		t.Error("the bound's assumptions are not stated")
+	}
+}
+
+// TestOperatingNoSteadyState: a rectifier that cannot carry its load is an
+// error naming the file, the table and the corner.
+func TestOperatingNoSteadyState(t *testing.T) {
+	c := builtinCatalog(t)
+	ev := load(t, c, "../testdata/swap/adj-vin-max.toml")
+	ev.Output.Amps.V = 500 // far beyond what 220 µF and 45 V RMS can feed
+	_, err := infer.OperatingPoint(ev, infer.OperatingOptions{Sweep: infer.SweepAll})
+	if err == nil {
+		t.Fatal("no error")
+	}
+	if !strings.Contains(err.Error(), "adj-vin-max.toml: [input]: low mains, full load") {
+		t.Errorf("the error does not name the file, table and corner: %v", err)
+	}
+}
