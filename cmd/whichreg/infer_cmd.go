@@ -124,6 +124,9 @@ func inferJSONOf(res *infer.Result, top int) inferJSON {
 	j := inferJSON{NotInCatalog: round(res.NotInCatalog, 6), Conflicts: res.Conflicts, Next: res.Next,
 		PriorOnly: res.PriorOnly, Assumptions: res.Assumptions, Candidates: []candidateJSON{}}
 	for i, c := range res.Candidates {
+		if math.IsInf(c.Score, -1) {
+			continue // ruled out: JSON has no -Inf (it is counted in nothing)
+		}
 		if top > 0 && i >= top {
 			j.Others += c.Probability
 			continue
