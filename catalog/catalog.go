@@ -82,8 +82,12 @@ type COut struct {
 type Package struct {
 	// Outline is an [Outline.Name] (or alias).
 	Outline string `toml:"outline" json:"outline"`
-	// Pins lists the function of leads 1..n (IN, OUT, GND, ADJ, NC, EN), numbered
-	// by the outline's convention ([Outline.View]).
+	// Variant names this pinout when a family has more than one on the same
+	// outline (e.g. "BC547 order" and "2N3904 order" on TO-92); "" otherwise.
+	Variant string `toml:"variant" json:"variant,omitempty"`
+	// Pins lists the function of leads 1..n (IN, OUT, GND, ADJ, NC, EN, … and
+	// B, C, E, G, D, S, REF, A, K for look-alikes), numbered by the outline's
+	// convention ([Outline.View]).
 	Pins []string `toml:"pins" json:"pins"`
 	// Tab is the function the tab, pad or can is tied to, or "none" when it is
 	// insulated or absent. On a case-terminal can it is the third terminal.
@@ -108,14 +112,23 @@ type Family struct {
 	Title string `toml:"title" json:"title"`
 	// Polarity is "positive" or "negative".
 	Polarity string `toml:"polarity" json:"polarity"`
-	// Kind is "fixed" or "adjustable".
+	// Kind is "fixed", "adjustable" or "non-regulator" (a look-alike: a
+	// transistor, shunt reference or switching IC that sits where a regulator
+	// might; never a replacement).
 	Kind string `toml:"kind" json:"kind"`
+	// Device says what a non-regulator family is ([Device]); "" for regulators.
+	Device Device `toml:"device" json:"device,omitempty"`
+	// ControlDropV is a transistor's conducting control-to-output drop
+	// magnitude as [low, high] volts: base to emitter (VBE(on)) or gate to
+	// source (VGS) over its working range, from the datasheet.
+	ControlDropV []float64 `toml:"control_drop_v" json:"control_drop_v,omitempty"`
 	// Pass is the pass element: "npn" (classic, ≈2 V headroom), "npn-ldo"
 	// (quasi-LDO, ≈1.3 V), "pnp" (LDO), "switching" (drop-in module). "" = npn.
 	Pass string `toml:"pass" json:"pass,omitempty"`
 	// OutputsV are the standard output voltages of a fixed family, as magnitudes in volts.
 	OutputsV []float64 `toml:"outputs_v" json:"outputs_v"`
-	// VrefV is an adjustable part's reference (OUT minus ADJ, magnitude), volts.
+	// VrefV is an adjustable part's reference (OUT minus ADJ, magnitude), volts;
+	// for a shunt reference REF minus A, for a switching IC its feedback voltage.
 	VrefV float64 `toml:"vref_v" json:"vref_v"`
 	// VoutMaxV is the highest output an adjustable part is specified for, volts; 0 = not stated.
 	VoutMaxV float64 `toml:"vout_max_v" json:"vout_max_v,omitempty"`
@@ -124,7 +137,8 @@ type Family struct {
 	Tolerance float64 `toml:"tolerance" json:"tolerance"`
 	// CurrentA is the rated output current, amperes.
 	CurrentA float64 `toml:"current_a" json:"current_a"`
-	// VinMaxV is a fixed part's absolute maximum input (magnitude), volts.
+	// VinMaxV is a fixed part's absolute maximum input (magnitude), volts;
+	// for a non-regulator the maximum collector, drain, cathode or input voltage.
 	// For fixed families with several ranges it is the value for the lowest
 	// outputs; VinMaxHighV applies from VinMaxHighFromV up.
 	VinMaxV float64 `toml:"vin_max_v" json:"vin_max_v"`

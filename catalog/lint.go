@@ -10,11 +10,22 @@ import (
 
 var (
 	validPolarity = []string{"positive", "negative"}
-	validKind     = []string{"fixed", "adjustable"}
+	validKind     = []string{KindFixed, KindAdjustable, KindNonRegulator}
 	validStatus   = []string{"active", "obsolete", "scarce"}
 	validPass     = []string{"", "npn", "npn-ldo", "pnp", "switching"}
-	validPins     = []string{PinIn, PinOut, PinGnd, PinAdj, PinNC, PinEn}
+	// regulatorPins are the lead functions a regulator family may use.
+	regulatorPins = []string{PinIn, PinOut, PinGnd, PinAdj, PinNC, PinEn, PinSense, PinFB, PinPG, PinBYP, PinInh}
+	// validPins are every lead function.
+	validPins = append(append([]string(nil), regulatorPins...), PinSW, PinB, PinC, PinE, PinG, PinD, PinS, PinRef, PinA, PinK)
 )
+
+func deviceWords() []string {
+	var out []string
+	for _, d := range Devices() {
+		out = append(out, string(d))
+	}
+	return out
+}
 
 func oneOf(v string, set []string) bool {
 	for _, s := range set {
@@ -126,11 +137,21 @@ func lintFamily(c *Catalog, f *Family, errs *ErrorList) {
 	if f.CurrentA <= 0 || f.CurrentA > 100 || bad(f.CurrentA) {
 		p.add(errs, "current_a", "current_a = %g is impossible; give the rated output current in amperes", f.CurrentA)
 	}
-	if f.DropoutV <= 0 || f.DropoutV > 10 || bad(f.DropoutV) {
-		p.add(errs, "dropout_v", "dropout_v = %g is impossible; give the worst-case input-output difference at rated current (> 0 V)", f.DropoutV)
-	}
-	if f.Tolerance <= 0 || f.Tolerance >= 0.5 || bad(f.Tolerance) {
-		p.add(errs, "tolerance", "tolerance = %g is not a fraction between 0 and 0.5 (write 0.04 for ±4 %%)", f.Tolerance)
+	if f.NonRegulator() {
+		lintNonRegulator(f, errs)
+	} else {
+		if f.DropoutV <= 0 || f.DropoutV > 10 || bad(f.DropoutV) {
+			p.add(errs, "dropout_v", "dropout_v = %g is impossible; give the worst-case input-output difference at rated current (> 0 V)", f.DropoutV)
+		}
+		if f.Tolerance <= 0 || f.Tolerance >= 0.5 || bad(f.Tolerance) {
+			p.add(errs, "tolerance", "tolerance = %g is not a fraction between 0 and 0.5 (write 0.04 for ±4 %%)", f.Tolerance)
+		}
+		if f.Device != "" {
+			p.add(errs, "device", "device is for kind = \"non-regulator\" families; a %s regulator leaves it out", f.Kind)
+		}
+		if len(f.ControlDropV) > 0 {
+			p.add(errs, "control_drop_v", "control_drop_v is for transistor look-alikes (kind = \"non-regulator\"); a regulator leaves it out")
+		}
 	}
 	if f.TjMaxC < 50 || f.TjMaxC > 250 || bad(f.TjMaxC) {
 		p.add(errs, "tj_max_c", "tj_max_c = %g °C is impossible; give the maximum junction temperature (e.g. 125)", f.TjMaxC)
@@ -208,6 +229,7 @@ func lintFamily(c *Catalog, f *Family, errs *ErrorList) {
 	for i := range f.Packages {
 		lintPackage(c, f, i, errs)
 	}
+	lintVariants(f, errs)
 }
 
 func lintPackage(c *Catalog, f *Family, i int, errs *ErrorList) {
@@ -225,8 +247,13 @@ func lintPackage(c *Catalog, f *Family, i int, errs *ErrorList) {
 		p.add(errs, key("pins"), "%d pins given but outline %s has %d leads; list one function per lead", len(pk.Pins), o.Name, o.Leads)
 	}
 	for j, fn := range pk.Pins {
-		if !oneOf(fn, validPins) {
+		switch {
+		case f.NonRegulator() && !oneOf(fn, validPins):
 			p.add(errs, key("pins"), "pins[%d] = %q is not one of %s", j, fn, quoteList(validPins))
+		case !f.NonRegulator() && oneOf(fn, validPins) && !oneOf(fn, regulatorPins):
+			p.add(errs, key("pins"), "pins[%d] = %q is a look-alike's lead; a regulator uses %s (a transistor or switching IC is kind = \"non-regulator\")", j, fn, quoteList(regulatorPins))
+		case !f.NonRegulator() && !oneOf(fn, regulatorPins):
+			p.add(errs, key("pins"), "pins[%d] = %q is not one of %s", j, fn, quoteList(regulatorPins))
 		}
 	}
 	if pk.Tab != TabNone && !oneOf(pk.Tab, validPins) {
@@ -246,6 +273,10 @@ func lintPackage(c *Catalog, f *Family, i int, errs *ErrorList) {
 	case "adjustable":
 		if !has(PinIn) || !has(PinOut) || !has(PinAdj) {
 			p.add(errs, key("pins"), "an adjustable part needs IN, OUT and ADJ terminals; this pinout has %s", strings.Join(terms, ", "))
+		}
+	case KindNonRegulator:
+		if msg := devicePinout(f.Device, terms); msg != "" {
+			p.add(errs, key("pins"), "%s; this pinout has %s", msg, strings.Join(terms, ", "))
 		}
 	}
 	if o != nil {
@@ -274,5 +305,114 @@ func lintPackage(c *Catalog, f *Family, i int, errs *ErrorList) {
 	}
 	if pk.Status != "" && !oneOf(pk.Status, validStatus) {
 		p.add(errs, key("status"), "status %q is not one of %s", pk.Status, quoteList(validStatus))
+	}
+}
+
+// lintNonRegulator checks the keys of a look-alike family.
+func lintNonRegulator(f *Family, errs *ErrorList) {
+	p := f.pos
+	if !oneOf(string(f.Device), deviceWords()) {
+		p.add(errs, "device", "device %q is not one of %s; a non-regulator family says what it is", f.Device, quoteList(deviceWords()))
+		return
+	}
+	if f.Polarity != f.Device.Polarity() && oneOf(f.Polarity, validPolarity) {
+		p.add(errs, "polarity", "a %s is polarity = %q (the collector, drain or cathode side is %s)", f.Device, f.Device.Polarity(), f.Device.Polarity())
+	}
+	if f.VinMaxV <= 0 {
+		p.add(errs, "vin_max_v", "a %s needs vin_max_v, its maximum collector, drain, cathode or input voltage", f.Device)
+	}
+	if f.Device.Transistor() {
+		if len(f.ControlDropV) != 2 {
+			p.add(errs, "control_drop_v", "a %s needs control_drop_v = [low, high], the conducting %s drop in volts from the datasheet", f.Device, controlName(f.Device))
+		} else if lo, hi := f.ControlDropV[0], f.ControlDropV[1]; lo <= 0 || hi < lo || hi > 10 || bad(lo) || bad(hi) {
+			p.add(errs, "control_drop_v", "control_drop_v = [%g, %g] is impossible; give [low, high] magnitudes in volts, low first (e.g. [0.6, 1.5])", lo, hi)
+		}
+		if f.VrefV != 0 || len(f.OutputsV) > 0 {
+			p.add(errs, "vref_v", "a %s has no reference or output voltage; leave vref_v and outputs_v out", f.Device)
+		}
+		return
+	}
+	if len(f.ControlDropV) > 0 {
+		p.add(errs, "control_drop_v", "control_drop_v is for transistors; a %s leaves it out", f.Device)
+	}
+	if f.VrefV < 0.5 || f.VrefV > 5 || bad(f.VrefV) {
+		p.add(errs, "vref_v", "vref_v = %g V is outside 0.5–5 V; give the %s's reference voltage", f.VrefV, f.Device)
+	}
+	if f.Tolerance <= 0 || f.Tolerance >= 0.5 || bad(f.Tolerance) {
+		p.add(errs, "tolerance", "tolerance = %g is not a fraction between 0 and 0.5 (write 0.02 for ±2 %%)", f.Tolerance)
+	}
+	if f.Device == DeviceShuntRef && len(f.OutputsV) > 0 {
+		p.add(errs, "outputs_v", "a shunt reference has no fixed outputs; leave outputs_v out")
+	}
+	for i, v := range f.OutputsV {
+		if v <= 0 || v > 1000 || bad(v) {
+			p.add(errs, "outputs_v", "outputs_v[%d] = %g: give magnitudes above 0 V", i, v)
+		}
+	}
+}
+
+func controlName(d Device) string {
+	if d.MOS() {
+		return "gate-to-source"
+	}
+	return "base-to-emitter"
+}
+
+// devicePinout says what is wrong with a look-alike's terminals, or "".
+func devicePinout(d Device, terms []string) string {
+	count := map[string]int{}
+	for _, t := range terms {
+		count[t]++
+	}
+	exactly := func(want ...string) bool {
+		n := 0
+		for _, w := range want {
+			if count[w] != 1 {
+				return false
+			}
+			n++
+		}
+		return n == len(terms)
+	}
+	switch {
+	case d.Bipolar():
+		if !exactly(PinB, PinC, PinE) {
+			return fmt.Sprintf("a %s has exactly one B, one C and one E terminal", d)
+		}
+	case d.MOS():
+		if !exactly(PinG, PinD, PinS) {
+			return fmt.Sprintf("a %s has exactly one G, one D and one S terminal", d)
+		}
+	case d == DeviceShuntRef:
+		if count[PinRef] != 1 || count[PinA] == 0 || count[PinK] == 0 || count[PinRef]+count[PinA]+count[PinK]+count[PinNC] != len(terms) {
+			return "a shunt reference has one REF, and A and K terminals (NC for unused leads)"
+		}
+	case d == DeviceBuck:
+		for _, fn := range terms {
+			if !oneOf(fn, []string{PinIn, PinSW, PinGnd, PinFB, PinEn, PinInh, PinNC, PinPG}) {
+				return fmt.Sprintf("a buck IC's leads are IN, SW, GND, FB, EN or INH, PG and NC, not %s", fn)
+			}
+		}
+		if count[PinIn] == 0 || count[PinSW] == 0 || count[PinGnd] == 0 || count[PinFB] == 0 {
+			return "a buck IC needs IN, SW, GND and FB terminals"
+		}
+	}
+	return ""
+}
+
+// lintVariants requires a variant name on every package that shares its
+// outline with another package of the same family, and names that differ.
+func lintVariants(f *Family, errs *ErrorList) {
+	seen := map[string]int{}
+	for i, pk := range f.Packages {
+		k := strings.ToLower(pk.Outline) + "\x00" + strings.ToLower(pk.Variant)
+		if j, ok := seen[k]; ok {
+			if pk.Variant == "" {
+				f.pos.add(errs, fmt.Sprintf("package[%d].variant", i), "package[%d] and package[%d] are both %s; give each a variant name (e.g. variant = \"TL432 order\")", j, i, pk.Outline)
+			} else {
+				f.pos.add(errs, fmt.Sprintf("package[%d].variant", i), "variant %q on %s is given twice (also package[%d]); the names must differ", pk.Variant, pk.Outline, j)
+			}
+		}
+		seen[k] = i
 	}
 }

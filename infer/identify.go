@@ -115,7 +115,7 @@ const (
 )
 
 // wiredLikelihood is P(wired_to word | lead function).
-var wiredLikelihood = map[string]map[string]float64{
+var wiredLikelihood = map[string]map[Wiring]float64{
 	catalog.PinIn:  {WiredUnregulated: 0.90, WiredNetwork: 0.02, WiredLoad: 0.02, WiredGround: 0.03, WiredOpen: 0.03},
 	catalog.PinOut: {WiredLoad: 0.86, WiredNetwork: 0.10, WiredUnregulated: 0.02, WiredGround: 0.01, WiredOpen: 0.01},
 	catalog.PinGnd: {WiredGround: 0.80, WiredNetwork: 0.15, WiredLoad: 0.02, WiredUnregulated: 0.015, WiredOpen: 0.015},

@@ -126,7 +126,7 @@ func conditions(ev *Evidence, orig Hypothesis) (Conditions, []string, error) {
 	}
 	if m != nil {
 		cd.HeatsinkCW = m.HeatsinkCPerW.V
-		cd.Insulator = m.Insulator
+		cd.Insulator = string(m.Insulator)
 		cd.Grounded = m.ChassisHeatsink != nil && *m.ChassisHeatsink
 	}
 	if m == nil || !m.HeatsinkCPerW.Set {
@@ -150,6 +150,9 @@ func Swap(c *catalog.Catalog, ev *Evidence, orig Hypothesis, prob float64, fromI
 	res := &SwapResult{Original: orig, Probability: prob, FromInfer: fromInfer, Conditions: cd, Assumptions: as}
 	var all []Replacement
 	for _, f := range c.Sorted() {
+		if f.NonRegulator() {
+			continue // a transistor or switching IC is never a replacement
+		}
 		for i := range f.Packages {
 			p := &f.Packages[i]
 			if !opts.All && f.StatusOf(p) != "active" {
@@ -611,7 +614,7 @@ func coutCheck(f *catalog.Family, ev *Evidence) (Check, bool) {
 		}
 		return Check{"cout", "unknown", coutLimit(req), 0, Warn, "the board's output capacitor is not described: " + coutAdvice(f)}, true
 	}
-	uf, kind := out.CapUF.V, out.CapType
+	uf, kind := out.CapUF.V, string(out.CapType)
 	if kind == "none" {
 		uf = 0
 	}
