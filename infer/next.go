@@ -239,7 +239,7 @@ func troughMeasurement(ev *Evidence) *measurement {
 				return outcomeDist{"unknown": 1}
 			}
 			mean := math.Abs(vin - vout)
-			need := h.Family.DropoutV * 0.7
+			need := h.Family.HeadroomNeeded() * typicalHeadroom
 			if mean <= need {
 				return outcomeDist{troughBucket(mean): 1}
 			}
