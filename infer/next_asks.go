@@ -258,7 +258,7 @@ func troughAsk(ev *Evidence) *measurement {
 				return outcomeDist{"unknown": 1}
 			}
 			mean := math.Abs(vin - vout)
-			need := h.Family.DropoutV * 0.7
+			need := h.Family.HeadroomNeeded() * typicalHeadroom
 			if mean <= need {
 				return outcomeDist{troughBucket(mean): 1}
 			}
