@@ -200,11 +200,21 @@ func writeInferText(w io.Writer, ev *infer.Evidence, res *infer.Result, top, why
 	writeList(w, "Conflicts in the evidence:", res.Conflicts)
 	if len(res.Next) > 0 {
 		fmt.Fprintln(w, "\nMeasure next (expected information gain):")
+		safety := ""
 		for i, m := range res.Next {
-			fmt.Fprintf(w, "  %d. %s — %.2f bits\n", i+1, m.Measure, m.GainBits)
+			fmt.Fprintf(w, "  %d. %s — %.2f bits, fills %s\n", i+1, m.Measure, m.GainBits, m.Key)
+			for _, line := range wrapWords(m.Prompt, 72) {
+				fmt.Fprintf(w, "       %s\n", line)
+			}
 			for _, o := range m.Outcomes {
 				fmt.Fprintf(w, "       %s\n", o)
 			}
+			if m.Safety != "" {
+				safety = m.Safety
+			}
+		}
+		for _, line := range wrapWords(safety, 76) {
+			fmt.Fprintf(w, "  %s\n", line)
 		}
 	}
 	writeList(w, "Assumed:", res.Assumptions)
@@ -237,7 +247,7 @@ func writeInferMarkdown(w io.Writer, ev *infer.Evidence, res *infer.Result, top,
 	if len(res.Next) > 0 {
 		fmt.Fprintln(w, "\n## Measure next")
 		for i, m := range res.Next {
-			fmt.Fprintf(w, "%d. %s (%.2f bits)\n", i+1, mdEscape(m.Measure), m.GainBits)
+			fmt.Fprintf(w, "%d. %s (%.2f bits; fills `%s`): %s\n", i+1, mdEscape(m.Measure), m.GainBits, m.Key, mdEscape(m.Prompt))
 			for _, o := range m.Outcomes {
 				fmt.Fprintf(w, "   - %s\n", mdEscape(o))
 			}
@@ -265,6 +275,27 @@ func writeList(w io.Writer, title string, items []string) {
 	for _, it := range items {
 		fmt.Fprintf(w, "  - %s\n", it)
 	}
+}
+
+// wrapWords breaks s into lines of at most width characters, at spaces.
+func wrapWords(s string, width int) []string {
+	var lines []string
+	line := ""
+	for _, word := range strings.Fields(s) {
+		switch {
+		case line == "":
+			line = word
+		case len([]rune(line))+1+len([]rune(word)) > width:
+			lines = append(lines, line)
+			line = word
+		default:
+			line += " " + word
+		}
+	}
+	if line != "" {
+		lines = append(lines, line)
+	}
+	return lines
 }
 
 func mdEscape(s string) string { return strings.ReplaceAll(s, "|", "\\|") }
