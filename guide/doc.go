@@ -14,7 +14,9 @@
 //   - back: undo the last accepted answer;
 //   - why: the leader's reasons;
 //   - list: the other candidate measurements, to pick one by number;
-//   - quit: end the session.
+//   - quit: end the session;
+//   - key = value ("pins.2.volts = 5.01"): fills that evidence key instead
+//     of the one asked, for a reading made without being asked.
 //
 // # Nothing lost
 //

@@ -221,11 +221,17 @@ func (s *Session) leader() Leader {
 	return s.rank.Leaders[0]
 }
 
-// open returns the ranked questions not skipped, best first.
+// open returns the ranked questions neither skipped nor answered in this
+// session (an illegible marking stays open to the identification, but the
+// technician has already looked), best first.
 func (s *Session) open() []Question {
+	answered := map[string]bool{}
+	for _, e := range s.history {
+		answered[e.key] = true
+	}
 	var out []Question
 	for _, q := range s.rank.Questions {
-		if !s.skipped[q.Key] {
+		if !s.skipped[q.Key] && !answered[q.Key] {
 			out = append(out, q)
 		}
 	}
@@ -278,7 +284,24 @@ func (s *Session) Reply(line string) (Reply, error) {
 	if q.Key == refKey {
 		return s.start(line)
 	}
+	if key, value, ok := keyed(line); ok {
+		return s.answer(Question{Key: key, Kind: KindText}, value)
+	}
 	return s.answer(q, line)
+}
+
+// keyed splits a direct answer "pins.2.volts = 5.01", which fills any
+// evidence key, not only the one asked.
+func keyed(line string) (key, value string, ok bool) {
+	key, value, ok = strings.Cut(line, "=")
+	key, value = strings.TrimSpace(key), strings.TrimSpace(value)
+	if !ok || key == "" || value == "" || strings.ContainsAny(key, " \t\"'") {
+		return "", "", false
+	}
+	if t, err := fieldType(key); err != nil || !isLeaf(t) {
+		return "", "", false
+	}
+	return key, strings.Trim(value, `"`), true
 }
 
 func isQuit(line string) bool {

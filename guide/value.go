@@ -45,6 +45,18 @@ func fieldType(key string) (reflect.Type, error) {
 	return t, nil
 }
 
+// isLeaf reports whether an evidence field of type t holds one value (not a
+// table of them).
+func isLeaf(t reflect.Type) bool {
+	switch t.Kind() {
+	case reflect.Map, reflect.Slice:
+		return false
+	case reflect.Struct:
+		return reflect.PointerTo(t).Implements(reflect.TypeOf((*quantity)(nil)).Elem())
+	}
+	return true
+}
+
 // quantity is implemented by the evidence's measured quantities ([infer.Q]).
 type quantity interface{ UnmarshalTOML(any) error }
 
@@ -66,6 +78,9 @@ func valueFor(q Question, answer string) (any, error) {
 	}
 	switch {
 	case reflect.PointerTo(t).Implements(reflect.TypeOf((*quantity)(nil)).Elem()):
+		if n, err := strconv.Atoi(answer); err == nil {
+			return n, nil // "0" stays 0, as typed
+		}
 		if f, err := strconv.ParseFloat(answer, 64); err == nil {
 			return f, nil
 		}
