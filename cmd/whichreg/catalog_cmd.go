@@ -69,8 +69,8 @@ func catalogListRun(opts *catalogListOptions) error {
 	}
 	var fams []*catalog.Family
 	for _, f := range c.Sorted() {
-		if (opts.Polarity != "" && f.Polarity != opts.Polarity) || (opts.Kind != "" && f.Kind != opts.Kind) ||
-			(opts.Status != "" && f.Status != opts.Status) || (opts.Outline != "" && f.Package(c, opts.Outline) == nil) {
+		if (opts.Polarity != "" && string(f.Polarity) != opts.Polarity) || (opts.Kind != "" && string(f.Kind) != opts.Kind) ||
+			(opts.Status != "" && string(f.Status) != opts.Status) || (opts.Outline != "" && f.Package(c, opts.Outline) == nil) {
 			continue
 		}
 		fams = append(fams, f)
