@@ -84,6 +84,15 @@ func weightOf(c Candidate, key string) (float64, bool) {
 // outcomeDist is a measurement's predicted outcome distribution for one hypothesis.
 type outcomeDist map[string]float64
 
+// wiringDist is the distribution of the wiring word of a lead of function fn.
+func wiringDist(fn string) outcomeDist {
+	d := outcomeDist{}
+	for w, p := range wiredLikelihood[fn] {
+		d[string(w)] = p
+	}
+	return d
+}
+
 type measurement struct {
 	name    string
 	predict func(h Hypothesis) outcomeDist
@@ -128,7 +137,7 @@ func nextMeasurements(ev *Evidence, res *Result, n int) []Measurement {
 					if k > len(h.Package.Pins) {
 						return outcomeDist{"none": 1}
 					}
-					return outcomeDist(wiredLikelihood[h.Package.Pins[k-1]])
+					return wiringDist(h.Package.Pins[k-1])
 				},
 				describe: func(key string) string { return fmt.Sprintf("lead %d to %s", k, key) },
 			})
@@ -230,7 +239,7 @@ func troughMeasurement(ev *Evidence) *measurement {
 				return outcomeDist{"unknown": 1}
 			}
 			mean := math.Abs(vin - vout)
-			need := h.Family.DropoutV * 0.7
+			need := h.Family.HeadroomNeeded() * typicalHeadroom
 			if mean <= need {
 				return outcomeDist{troughBucket(mean): 1}
 			}

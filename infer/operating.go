@@ -144,7 +144,7 @@ func OperatingPoint(ev *Evidence, opts OperatingOptions) (*Operating, error) {
 	} else {
 		op.note("lightest load not given: no load assumed")
 	}
-	if opts.AssumedLoadA == 0 && (in == nil || in.Rectifier == "" || in.Rectifier == "dc") {
+	if opts.AssumedLoadA == 0 && (in == nil || in.Rectifier == "" || in.Rectifier.DC()) {
 		op.Assumptions = nil // the load is used by nothing but the rectifier model
 	}
 	if in == nil {
@@ -158,11 +158,32 @@ func OperatingPoint(ev *Evidence, opts OperatingOptions) (*Operating, error) {
 	if in.TroughVolts.Set {
 		op.troughMeasured = math.Abs(in.TroughVolts.V)
 	}
-	if in.Rectifier == "dc" {
+	if in.TransientVolts.Set {
+		op.TransientV = math.Abs(in.TransientVolts.V)
+	}
+	if in.Rectifier.DC() {
+		// The nominal DC input, and its stated range (a missing end of the
+		// range is the nominal; a missing nominal is the middle of the range).
+		lo, hi := math.Abs(in.DCVoltsMin.V), math.Abs(in.DCVoltsMax.V)
 		v := math.Abs(in.DCVolts.V)
+		switch {
+		case !in.DCVolts.Set && in.DCVoltsMin.Set && in.DCVoltsMax.Set:
+			v = (lo + hi) / 2
+		case !in.DCVolts.Set:
+			v = lo + hi // only one end is given
+		}
+		if !in.DCVoltsMin.Set {
+			lo = v
+		}
+		if !in.DCVoltsMax.Set {
+			hi = v
+		}
 		op.Source = InputDC
 		op.Nominal = Levels{PeakV: v, TroughV: v, MeanV: v}
-		op.Trough, op.Peak = Level{v, "the DC supply"}, Level{v, "the DC supply"}
+		op.Trough, op.Peak = Level{lo, "the DC supply at its lowest"}, Level{hi, "the DC supply at its highest"}
+		if lo == hi {
+			op.Trough.At, op.Peak.At = "the DC supply", "the DC supply"
+		}
 		op.MeanHigh, op.MeanLow = op.Peak, op.Trough
 		return op, nil
 	}
@@ -287,9 +308,9 @@ func (op *Operating) rectifierModel(ev *Evidence) (r circuit.Rectifier, ok bool,
 	if in.Rectifier == "" || !in.SecondaryVrms.Set || !in.FilterUF.Set {
 		return r, false, nil
 	}
-	top, err := circuit.ParseTopology(in.Rectifier)
-	if err != nil {
-		return r, false, fmt.Errorf("%s: [input] rectifier: %w", ev.File, err)
+	top, ok := in.Rectifier.Topology()
+	if !ok {
+		return r, false, nil
 	}
 	reg := in.SecondaryRegulation.Or(0.10)
 	if !in.SecondaryRegulation.Set {

@@ -126,7 +126,7 @@ func conditions(ev *Evidence, orig Hypothesis) (Conditions, []string, error) {
 	}
 	if m != nil {
 		cd.HeatsinkCW = m.HeatsinkCPerW.V
-		cd.Insulator = m.Insulator
+		cd.Insulator = string(m.Insulator)
 		cd.Grounded = m.ChassisHeatsink != nil && *m.ChassisHeatsink
 	}
 	if m == nil || !m.HeatsinkCPerW.Set {
@@ -614,7 +614,7 @@ func coutCheck(f *catalog.Family, ev *Evidence) (Check, bool) {
 		}
 		return Check{"cout", "unknown", coutLimit(req), 0, Warn, "the board's output capacitor is not described: " + coutAdvice(f)}, true
 	}
-	uf, kind := out.CapUF.V, out.CapType
+	uf, kind := out.CapUF.V, string(out.CapType)
 	if kind == "none" {
 		uf = 0
 	}

@@ -319,7 +319,7 @@ that keeps the junction at --tj. --theta-ja gives the free-air temperature.`,
 	addQuantity(cmd, &opts.ThetaSA, "theta-sa", "C/W", 0, "sink to air")
 	addQuantity(cmd, &opts.ThetaJA, "theta-ja", "C/W", 0, "junction to air with no heat sink")
 	opts.Insulator = "none"
-	addEnumFlag(cmd, &opts.Insulator, "insulator", "interface between case and sink", "none", "mica", "silicone", "unknown")
+	addEnumFlag(cmd, &opts.Insulator, "insulator", "interface between case and sink", circuit.Insulators()...)
 	cmd.Flags().BoolVar(&opts.LargeCan, "large-can", false, "the case is a TO-3 or TO-66 can (lower θCS)")
 	return cmd
 }

@@ -5,9 +5,41 @@ import (
 	"strings"
 )
 
+// insulatorRow is one interface of the case-to-sink table: θCS on a small
+// tab and on a large can, °C/W.
+type insulatorRow struct {
+	word         string
+	small, large float64
+}
+
+// insulatorTable is the case-to-sink table, in the order the words are
+// listed to the user. "none" is bare metal with thermal compound, the same
+// as "grease".
+func insulatorTable() []insulatorRow {
+	return []insulatorRow{
+		{"none", 1.0, 0.4},
+		{"grease", 1.0, 0.4},
+		{"mica", 1.6, 1.0},
+		{"silicone", 2.5, 1.5},
+		{"unknown", 2.5, 1.5},
+	}
+}
+
+// Insulators returns the interface words [CaseToSink] knows, in order: the
+// one list the evidence file and the flags allow.
+func Insulators() []string {
+	rows := insulatorTable()
+	out := make([]string, len(rows))
+	for i, r := range rows {
+		out[i] = r.word
+	}
+	return out
+}
+
 // CaseToSink returns θCS, the case-to-heat-sink thermal resistance in °C/W,
-// for an interface ("none" = bare metal with thermal compound, "mica",
-// "silicone", "unknown") on a large can (TO-3, TO-66) or a small tab.
+// for an interface (one of [Insulators]: "none" = bare metal with thermal
+// compound, "grease", "mica", "silicone", "unknown") on a large can (TO-3,
+// TO-66) or a small tab.
 //
 // Values: TO-220 with compound 1.0 °C/W (TI TPS758xx SLVS330D); TO-3 with
 // grease 0.40, grease + mica 1.00 °C/W (blog.mbedded.ninja TO-3 page, as
@@ -16,22 +48,15 @@ import (
 // memory, the middle of the 1.5–3 range). "unknown" takes the silicone pad,
 // the worst of the three.
 func CaseToSink(insulator string, largeCan bool) (float64, error) {
-	type pair struct{ small, large float64 }
-	table := map[string]pair{
-		"none":     {1.0, 0.4},
-		"grease":   {1.0, 0.4},
-		"mica":     {1.6, 1.0},
-		"silicone": {2.5, 1.5},
-		"unknown":  {2.5, 1.5},
+	for _, r := range insulatorTable() {
+		if strings.EqualFold(r.word, insulator) {
+			if largeCan {
+				return r.large, nil
+			}
+			return r.small, nil
+		}
 	}
-	p, ok := table[strings.ToLower(insulator)]
-	if !ok {
-		return 0, fmt.Errorf("unknown insulator %q (use none, mica, silicone or unknown)", insulator)
-	}
-	if largeCan {
-		return p.large, nil
-	}
-	return p.small, nil
+	return 0, fmt.Errorf("unknown insulator %q (use %s)", insulator, strings.Join(Insulators(), ", "))
 }
 
 // JunctionTemp returns the junction temperature, °C, of a part dissipating
