@@ -17,16 +17,6 @@ func oneOf(v string, set []string) bool {
 	return false
 }
 
-func quoteList(set []string) string {
-	var q []string
-	for _, s := range set {
-		if s != "" {
-			q = append(q, fmt.Sprintf("%q", s))
-		}
-	}
-	return strings.Join(q, ", ")
-}
-
 // Lint checks the merged catalog c and returns every problem found in
 // entries whose Origin is in only (all entries when only is empty). Each
 // problem names the file, line, column and key, and says what to do.
