@@ -22,7 +22,7 @@ type inferOptions struct {
 func newInferCmd(app *App, runF func(*inferOptions) error) *cobra.Command {
 	opts := &inferOptions{app: app}
 	cmd := &cobra.Command{
-		Use:   "infer EVIDENCE.toml",
+		Use:   "infer EVIDENCE.toml|-",
 		Short: "Rank what an unmarked regulator could be, with probabilities and reasons",
 		Long: `infer ranks every (family, package, output voltage) in the catalog against what
 you measured. Each candidate's score is the sum of its reasons: a prior
@@ -31,7 +31,8 @@ likelihood ratio against a part about which nothing is known. "Not in the
 catalog" is always listed: if it leads, the evidence fits nothing known.
 Then it lists the measurements that would best separate the leaders.`,
 		Example: `  whichreg infer testdata/demo/bench-supply-negative.toml
-  whichreg infer board.toml --top 10 --format json`,
+  whichreg infer board.toml --top 10 --format json
+  whichreg infer - < board.toml`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			opts.File = args[0]
@@ -45,7 +46,7 @@ Then it lists the measurements that would best separate the leaders.`,
 		},
 	}
 	addFormatFlag(cmd, &opts.Format, "text", "json", "markdown")
-	cmd.Flags().IntVar(&opts.Top, "top", 0, "candidates to list (0 = 8 in text and markdown, all in JSON)")
+	cmd.Flags().IntVar(&opts.Top, "top", 0, "list the `N` leading candidates (0 = 8 in text and markdown, every one in JSON)")
 	cmd.Flags().IntVar(&opts.Why, "why", 3, "show the reasons of this many leaders (text and markdown)")
 	return cmd
 }
@@ -123,6 +124,9 @@ func inferJSONOf(res *infer.Result, top int) inferJSON {
 	j := inferJSON{NotInCatalog: round(res.NotInCatalog, 6), Conflicts: res.Conflicts, Next: res.Next,
 		PriorOnly: res.PriorOnly, Assumptions: res.Assumptions, Candidates: []candidateJSON{}}
 	for i, c := range res.Candidates {
+		if math.IsInf(c.Score, -1) {
+			continue // ruled out: JSON has no -Inf (it is counted in nothing)
+		}
 		if top > 0 && i >= top {
 			j.Others += c.Probability
 			continue
@@ -172,7 +176,7 @@ func title(ev *infer.Evidence) string {
 }
 
 func writeInferText(w io.Writer, ev *infer.Evidence, res *infer.Result, top, why int) {
-	fmt.Fprintf(w, "%s (%s)\n", title(ev), ev.File)
+	fmt.Fprintln(w, title(ev))
 	if res.PriorOnly {
 		fmt.Fprintln(w, "No evidence bears on the ranking: candidates are ranked by prior (commonness and era) alone.")
 	}
@@ -196,11 +200,21 @@ func writeInferText(w io.Writer, ev *infer.Evidence, res *infer.Result, top, why
 	writeList(w, "Conflicts in the evidence:", res.Conflicts)
 	if len(res.Next) > 0 {
 		fmt.Fprintln(w, "\nMeasure next (expected information gain):")
+		safety := ""
 		for i, m := range res.Next {
-			fmt.Fprintf(w, "  %d. %s — %.2f bits\n", i+1, m.Measure, m.GainBits)
+			fmt.Fprintf(w, "  %d. %s — %.2f bits, fills %s\n", i+1, m.Measure, m.GainBits, m.Key)
+			for _, line := range wrapWords(m.Prompt, 72) {
+				fmt.Fprintf(w, "       %s\n", line)
+			}
 			for _, o := range m.Outcomes {
 				fmt.Fprintf(w, "       %s\n", o)
 			}
+			if m.Safety != "" {
+				safety = m.Safety
+			}
+		}
+		for _, line := range wrapWords(safety, 76) {
+			fmt.Fprintf(w, "  %s\n", line)
 		}
 	}
 	writeList(w, "Assumed:", res.Assumptions)
@@ -233,7 +247,7 @@ func writeInferMarkdown(w io.Writer, ev *infer.Evidence, res *infer.Result, top,
 	if len(res.Next) > 0 {
 		fmt.Fprintln(w, "\n## Measure next")
 		for i, m := range res.Next {
-			fmt.Fprintf(w, "%d. %s (%.2f bits)\n", i+1, mdEscape(m.Measure), m.GainBits)
+			fmt.Fprintf(w, "%d. %s (%.2f bits; fills `%s`): %s\n", i+1, mdEscape(m.Measure), m.GainBits, m.Key, mdEscape(m.Prompt))
 			for _, o := range m.Outcomes {
 				fmt.Fprintf(w, "   - %s\n", mdEscape(o))
 			}
@@ -261,6 +275,27 @@ func writeList(w io.Writer, title string, items []string) {
 	for _, it := range items {
 		fmt.Fprintf(w, "  - %s\n", it)
 	}
+}
+
+// wrapWords breaks s into lines of at most width characters, at spaces.
+func wrapWords(s string, width int) []string {
+	var lines []string
+	line := ""
+	for _, word := range strings.Fields(s) {
+		switch {
+		case line == "":
+			line = word
+		case len([]rune(line))+1+len([]rune(word)) > width:
+			lines = append(lines, line)
+			line = word
+		default:
+			line += " " + word
+		}
+	}
+	if line != "" {
+		lines = append(lines, line)
+	}
+	return lines
 }
 
 func mdEscape(s string) string { return strings.ReplaceAll(s, "|", "\\|") }

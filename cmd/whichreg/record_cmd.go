@@ -61,6 +61,9 @@ regulation threshold marked.`,
 			if opts.Choose == "" {
 				return flagErrorf("--choose ID[:OUTLINE] is required: run 'whichreg swap %s' to see the candidates", opts.File)
 			}
+			if opts.Figure == "-" && (opts.Output == "" || opts.Output == "-") {
+				return flagErrorf("--figure - writes the figure to stdout: give the record a file with -o FILE")
+			}
 			if runF != nil {
 				return runF(opts)
 			}
@@ -70,8 +73,8 @@ regulation threshold marked.`,
 	addFormatFlag(cmd, &opts.Format, "markdown", "json")
 	cmd.Flags().StringVar(&opts.Choose, "choose", "", "the chosen replacement `ID[:OUTLINE]`")
 	cmd.Flags().StringVar(&opts.Original, "original", "", "the original part as `ID[:OUTLINE[:VOUT]]` instead of infer's leader")
-	cmd.Flags().StringVarP(&opts.Output, "output", "o", "", "write the record to `FILE` (default: standard output)")
-	cmd.Flags().StringVar(&opts.Figure, "figure", "", "also write the input waveform as `FILE.svg`")
+	cmd.Flags().StringVarP(&opts.Output, "output", "o", "", "write the record to `FILE` (default, or -: standard output)")
+	cmd.Flags().StringVar(&opts.Figure, "figure", "", "also write the input waveform as `FILE.svg` (-: standard output, with -o FILE)")
 	cmd.Flags().BoolVar(&opts.Force, "force", false, "replace existing files")
 	return cmd
 }
@@ -152,6 +155,15 @@ func recordRun(o *recordOptions) error {
 // writeRecordFiles writes the record and figure, or nothing: if the second
 // file cannot be written the first is removed again.
 func writeRecordFiles(o *recordOptions, body, fig []byte) error {
+	if o.Figure == "-" {
+		// The figure goes to stdout, the record to its file (checked in RunE).
+		if err := writeFileAtomic(o.Output, body, o.Force); err != nil {
+			return err
+		}
+		fmt.Fprintf(o.app.IO.ErrOut, "wrote %s\n", o.Output)
+		_, err := o.app.IO.Out.Write(fig)
+		return err
+	}
 	if o.Output == "" || o.Output == "-" {
 		if fig != nil {
 			if err := writeFileAtomic(o.Figure, fig, o.Force); err != nil {
