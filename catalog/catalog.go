@@ -91,6 +91,10 @@ type Package struct {
 	Status Status `toml:"status" json:"status,omitempty"`
 	// Note is a remark on this variant (pinout caveats, sources of doubt).
 	Note string `toml:"note" json:"note,omitempty"`
+	// OrderCodes are two or three current order codes for this package, as
+	// examples from the makers' ordering tables (one voltage where the family
+	// has several); empty for parts no longer made.
+	OrderCodes []string `toml:"order_codes" json:"order_codes,omitempty"`
 }
 
 // Family is a group of parts sold under one generic designation.

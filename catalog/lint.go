@@ -274,6 +274,11 @@ func lintPackage(c *Catalog, f *Family, i int, errs *ErrorList) {
 	if pk.CurrentA < 0 || bad(pk.CurrentA) {
 		p.add(errs, key("current_a"), "current_a = %g is impossible", pk.CurrentA)
 	}
+	for j, code := range pk.OrderCodes {
+		if code == "" || len(code) > 40 || strings.ContainsAny(code, " \t\n") {
+			p.add(errs, key("order_codes"), "order_codes[%d] = %q is not an order code; give the maker's code as printed in its ordering table, without spaces", j, code)
+		}
+	}
 	if pk.Status != "" && !isWord(pk.Status, Statuses()) {
 		p.add(errs, key("status"), "status %q is not one of %s", pk.Status, quoteWords(Statuses()))
 	}
