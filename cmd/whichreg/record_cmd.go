@@ -209,7 +209,7 @@ func buildRecord(app *App, c *catalog.Catalog, ev *infer.Evidence, ires *infer.R
 		Original: sj.Original, Conditions: sres.Conditions, Assumptions: sres.Assumptions, Safety: safetyCautions,
 		SignOff: map[string]string{"fitted_by": "", "fitted_date": "", "verified_by": "", "verified_date": "", "measured_output_v": "", "case_temp_after_10_min_c": ""},
 	}
-	ij := inferJSONOf(ires, 5)
+	ij := recordIdentOf(ires, 5)
 	rec.Identification = ij.Candidates
 	for i, r := range sres.Replacements {
 		if &sres.Replacements[i] == chosen {
