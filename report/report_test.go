@@ -23,6 +23,8 @@ func TestWrap(t *testing.T) {
 		{"newline kept", "a b\nc", "", "", 20, []string{"a b", "c"}},
 		{"empty", "", "> ", "  ", 20, []string{">"}},
 		{"runes not bytes", "µµµµ ΩΩΩΩ", "", "", 9, []string{"µµµµ ΩΩΩΩ"}},
+		{"number and unit kept together", "it is 19 % of them", "", "", 9, []string{"it is", "19 % of", "them"}},
+		{"prefixed unit kept", "R2 4.7 kΩ, C1 2200 µF", "", "", 10, []string{"R2 4.7 kΩ,", "C1 2200 µF"}},
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {

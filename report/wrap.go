@@ -23,7 +23,7 @@ func Wrap(text string, width int, first, rest string) []string {
 		if i > 0 {
 			prefix = rest
 		}
-		words := strings.Fields(para)
+		words := glueUnits(strings.Fields(para))
 		if len(words) == 0 {
 			lines = append(lines, strings.TrimRight(prefix, " "))
 			prefix = rest
@@ -62,7 +62,51 @@ func Wrap(text string, width int, first, rest string) []string {
 		lines = append(lines, line)
 		prefix = rest
 	}
+	for i, l := range lines {
+		lines[i] = strings.ReplaceAll(l, nbsp, " ")
+	}
 	return lines
+}
+
+// glueUnits joins a number and the unit after it ("19 %", "4.7 kΩ") with
+// a no-break space, so that no line ends between the two; Wrap turns it
+// back into a space.
+func glueUnits(words []string) []string {
+	out := words[:0:0]
+	for _, w := range words {
+		if n := len(out); n > 0 && endsInDigit(out[n-1]) && isUnit(w) {
+			out[n-1] += nbsp + w
+			continue
+		}
+		out = append(out, w)
+	}
+	return out
+}
+
+const nbsp = "\u00a0"
+
+func endsInDigit(s string) bool {
+	r, _ := utf8.DecodeLastRuneInString(s)
+	return r >= '0' && r <= '9'
+}
+
+// isUnit reports whether w is a unit symbol, with an optional SI prefix and
+// trailing punctuation: %, °C, °C/W, V, mA, kΩ, µF, Hz, W, s, ms.
+func isUnit(w string) bool {
+	w = strings.TrimRight(w, ".,;:)")
+	switch w {
+	case "%", "°C", "°C/W", "Hz", "bits", "V p-p", "rms":
+		return true
+	}
+	r, n := utf8.DecodeRuneInString(w)
+	if strings.ContainsRune("pnuµmkMG", r) && n < len(w) {
+		w = w[n:]
+	}
+	switch w {
+	case "V", "A", "Ω", "F", "W", "s", "Hz":
+		return true
+	}
+	return false
 }
 
 // splitRunes splits s after n runes.

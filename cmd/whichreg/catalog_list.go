@@ -37,7 +37,7 @@ func newCatalogListCmd(app *App, runF func(*catalogListOptions) error) *cobra.Co
 	}
 	addFormatFlag(cmd, &opts.Format, "text", "json")
 	addEnumFlag(cmd, &opts.Polarity, "polarity", "only this polarity", "", "positive", "negative")
-	addEnumFlag(cmd, &opts.Kind, "kind", "only this kind", "", "fixed", "adjustable")
+	addEnumFlag(cmd, &opts.Kind, "kind", "only this kind", "", "fixed", "adjustable", "non-regulator")
 	addEnumFlag(cmd, &opts.Status, "status", "only this production status", "", "active", "obsolete", "scarce")
 	cmd.Flags().StringVar(&opts.Outline, "outline", "", "only families sold in this `OUTLINE` (name or alias)")
 	return cmd
@@ -53,8 +53,8 @@ func catalogListRun(opts *catalogListOptions) error {
 	}
 	var fams []*catalog.Family
 	for _, f := range c.Sorted() {
-		if (opts.Polarity != "" && f.Polarity != opts.Polarity) || (opts.Kind != "" && f.Kind != opts.Kind) ||
-			(opts.Status != "" && f.Status != opts.Status) || (opts.Outline != "" && f.Package(c, opts.Outline) == nil) {
+		if (opts.Polarity != "" && string(f.Polarity) != opts.Polarity) || (opts.Kind != "" && string(f.Kind) != opts.Kind) ||
+			(opts.Status != "" && string(f.Status) != opts.Status) || (opts.Outline != "" && f.Package(c, opts.Outline) == nil) {
 			continue
 		}
 		fams = append(fams, f)

@@ -7,8 +7,10 @@ import (
 	"os/exec"
 	"path/filepath"
 	"strconv"
+	"strings"
 	"testing"
 	"time"
+	"unicode/utf8"
 
 	"github.com/rogpeppe/go-internal/testscript"
 )
@@ -78,6 +80,20 @@ func TestScripts(t *testing.T) {
 				}
 				if got != want {
 					ts.Fatalf("exit code %d, want %d", got, want)
+				}
+			},
+			// maxwidth N checks that no line of the last command's stdout is
+			// wider than N columns (runes).
+			"maxwidth": func(ts *testscript.TestScript, neg bool, args []string) {
+				if len(args) != 1 {
+					ts.Fatalf("usage: maxwidth N")
+				}
+				n, err := strconv.Atoi(args[0])
+				ts.Check(err)
+				for i, line := range strings.Split(ts.ReadFile("stdout"), "\n") {
+					if w := utf8.RuneCountInString(line); w > n {
+						ts.Fatalf("line %d is %d columns wide (more than %d):\n%s", i+1, w, n, line)
+					}
 				}
 			},
 			// exits CODE PROGRAM ARGS... runs the program and checks its exit code.
