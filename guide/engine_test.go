@@ -6,6 +6,8 @@ import (
 	"testing"
 
 	"github.com/google/go-cmp/cmp"
+
+	"github.com/whichreg/whichreg/catalog/builtin"
 )
 
 // start is a file a technician began by hand, with comments to keep.
@@ -21,7 +23,7 @@ wired_to = "unregulated"
 // made of each line and the document saved at the end.
 func TestReplies(t *testing.T) {
 	t.Parallel()
-	id := Infer{Catalog: builtinCatalog(t)}
+	id := Infer{Catalog: builtin.Catalog()}
 	tests := []struct {
 		name  string
 		lines []string
@@ -97,7 +99,7 @@ func TestReplies(t *testing.T) {
 // that the session ends.
 func TestSkipNotAskedAgain(t *testing.T) {
 	t.Parallel()
-	s, err := New(Infer{Catalog: builtinCatalog(t)}, "u7.toml", []byte(start), Options{Save: func(string, []byte) error { return nil }})
+	s, err := New(Infer{Catalog: builtin.Catalog()}, "u7.toml", []byte(start), Options{Save: func(string, []byte) error { return nil }})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -125,7 +127,7 @@ func TestSkipNotAskedAgain(t *testing.T) {
 // names the file; an existing file of that name is continued, not replaced.
 func TestNewFile(t *testing.T) {
 	t.Parallel()
-	id := Infer{Catalog: builtinCatalog(t)}
+	id := Infer{Catalog: builtin.Catalog()}
 	saved := map[string]string{}
 	opts := Options{
 		Save: func(name string, doc []byte) error { saved[name] = string(doc); return nil },
@@ -169,7 +171,7 @@ func TestNewFile(t *testing.T) {
 // TestRefusedFile: a file that does not load starts no session.
 func TestRefusedFile(t *testing.T) {
 	t.Parallel()
-	_, err := New(Infer{Catalog: builtinCatalog(t)}, "x.toml", []byte("volts = 5\n"), Options{})
+	_, err := New(Infer{Catalog: builtin.Catalog()}, "x.toml", []byte("volts = 5\n"), Options{})
 	if err == nil || !strings.Contains(err.Error(), "volts") {
 		t.Errorf("New on an unknown key: %v, want the loader's error naming it", err)
 	}
@@ -178,7 +180,7 @@ func TestRefusedFile(t *testing.T) {
 // TestSaveFails: an I/O failure ends the session with the error.
 func TestSaveFails(t *testing.T) {
 	t.Parallel()
-	s, _ := New(Infer{Catalog: builtinCatalog(t)}, "u7.toml", []byte(start), Options{Save: func(string, []byte) error { return errors.New("disk full") }})
+	s, _ := New(Infer{Catalog: builtin.Catalog()}, "u7.toml", []byte(start), Options{Save: func(string, []byte) error { return errors.New("disk full") }})
 	if _, err := s.Reply("output.amps = 1"); err == nil {
 		t.Fatal("no error from a failed save")
 	}
