@@ -172,16 +172,16 @@ func readPrefix(p []byte) prefixRead {
 	}
 	s := string(p)
 	if m, ok := matchMaker(s); ok {
-		return prefixRead{ok: true, maker: m, text: "maker prefix " + s}
+		return prefixRead{ok: true, maker: m, text: "maker " + s}
 	}
 	for _, l := range logos {
 		if strings.HasPrefix(s, l) {
 			rest := s[len(l):]
 			if rest == "" {
-				return prefixRead{ok: true, text: "logo read as " + l}
+				return prefixRead{ok: true, text: "logo " + l}
 			}
 			if m, ok := matchMaker(rest); ok {
-				return prefixRead{ok: true, maker: m, text: "logo read as " + l + ", maker prefix " + rest}
+				return prefixRead{ok: true, maker: m, text: "logo " + l + ", maker " + rest}
 			}
 		}
 	}
@@ -368,7 +368,7 @@ func DecodeMarking(c *Catalog, text string) Decoded {
 		d.Hits = append(d.Hits, r.byDevice(d.Hits)...)
 	}
 	if len(d.DateCodes) > 0 {
-		note := fmt.Sprintf("; %s read as a date code (year, week) and left out", strings.Join(d.DateCodes, ", "))
+		note := fmt.Sprintf(", %s a date code (year, week), left out", strings.Join(d.DateCodes, " "))
 		for i := range d.Hits {
 			d.Hits[i].Detail += note
 		}

@@ -222,7 +222,10 @@ func (r *reader) hit(f *Family, cd *candidate) Hit {
 	var parts []string
 	pre := string(t.q[:cd.start])
 	num := string(t.q[cd.start:min(cd.end, len(t.q))])
-	parts = append(parts, fmt.Sprintf("%q read as %s", t.raw, strings.Join(nonEmpty(pre, num, cd.suf.text), " + ")))
+	if l := cd.core.lead; pre == "" && l > 0 && len(num) > l && num[:l] == string(cd.core.text[:l]) {
+		pre, num = num[:l], num[l:] // the pattern spells the maker prefix
+	}
+	head := "read as " + strings.Join(nonEmpty(pre, num, cd.suf.text), " + ")
 	if cd.pre.text != "" {
 		parts = append(parts, cd.pre.text)
 	}
@@ -236,7 +239,7 @@ func (r *reader) hit(f *Family, cd *candidate) Hit {
 		}
 	}
 	if len(looks) > 0 {
-		parts = append(parts, "look-alike "+strings.Join(looks, ", "))
+		parts = append(parts, strings.Join(looks, ", "))
 	}
 	p := cd.core.pattern
 	switch {
@@ -245,7 +248,7 @@ func (r *reader) hit(f *Family, cd *candidate) Hit {
 	case cd.core.vout > 0 && len(h.VoutV) == 0:
 		p += ", voltage code not legible"
 	}
-	parts = append(parts, "pattern "+p)
+	parts = append(parts, p)
 	if len(h.VoutV) > 0 {
 		var vs []string
 		for _, v := range h.VoutV {
@@ -261,7 +264,7 @@ func (r *reader) hit(f *Family, cd *candidate) Hit {
 	}
 	parts = append(parts, cd.suf.notes...)
 	parts = append(parts, cd.notes...)
-	h.Detail = strings.Join(parts, "; ")
+	h.Detail = head + ": " + strings.Join(parts, ", ")
 	return h
 }
 

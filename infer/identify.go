@@ -66,13 +66,6 @@ func (c *Candidate) name() string {
 	return c.label
 }
 
-// Measurement is a suggested next measurement.
-type Measurement struct {
-	Measure  string   `json:"measure"`   // what to measure, in words
-	GainBits float64  `json:"gain_bits"` // expected information gain over the leaders, bits
-	Outcomes []string `json:"outcomes"`  // what each likely outcome would mean
-}
-
 // Result is the outcome of [Identify].
 type Result struct {
 	// Candidates are every hypothesis, most probable first.
@@ -127,6 +120,15 @@ var wiredLikelihood = map[string]map[Wiring]float64{
 var functionWords = map[string]string{
 	catalog.PinIn: "IN", catalog.PinOut: "OUT", catalog.PinGnd: "GND", catalog.PinAdj: "ADJ", catalog.PinNC: "NC", catalog.PinEn: "EN",
 }
+
+// typicalHeadroom is the fraction of the datasheet's worst-case dropout
+// ([catalog.Family.HeadroomNeeded]) with which a typical part still
+// regulates: identification and the next-measurement planner ask whether a
+// running part could be this one, not whether every part is guaranteed to
+// work, which replacement asks with the whole figure (typical dropouts are
+// 50–90 % of the maximum: LM2940 0.5/1.0 V, LM1117 1.2/1.4 V, LM7805 about 1.7/2 V; common
+// practice, no source for the single fraction).
+const typicalHeadroom = 0.8
 
 // window is the likelihood of a measured deviation z (in units of the
 // allowed error): 0.9 inside, falling off as a Gaussian outside, with a
@@ -501,24 +503,19 @@ func likelihoods(h Hypothesis, ev *Evidence, op *opPoint) []Reason {
 	}
 	if haveIn && haveOut {
 		head := sign * (vin - vout)
-		drop := f.DropoutV
-		// Dropout is specified at rated current; at lighter loads a part
-		// regulates with a little less (common practice, no source): the
-		// threshold runs from 70 % of the figure at no load to all of it at
-		// the rating.
-		frac := 0.5
-		if ev.Output != nil && ev.Output.Amps.Set {
-			frac = math.Min(1, ev.Output.Amps.V/f.Current(pk))
-		}
-		thr := drop * (0.7 + 0.3*frac)
+		// The datasheet's worst-case dropout, the same figure replacement
+		// checks against (catalog.Family.HeadroomNeeded). A running part may
+		// be a typical one, which regulates with less: see typicalHeadroom.
+		drop := f.HeadroomNeeded()
+		thr := drop * typicalHeadroom
 		switch {
 		case head < -0.3:
 			add("voltages.headroom", 0.003, 0.3, "IN − OUT = %+.2f V: a %s regulator's input must be %s its output", vin-vout, f.Polarity, map[bool]string{true: "below", false: "above"}[f.Negative()])
 		case head < thr:
 			d := (thr - head) / drop
-			add("voltages.headroom", 0.9*math.Exp(-0.5*sq(d/0.15))+0.01, 0.3, "headroom %.2f V, below the %.2f V this part needs here (dropout %.2f V at rated current)", head, thr, drop)
+			add("voltages.headroom", 0.9*math.Exp(-0.5*sq(d/0.15))+0.01, 0.3, "headroom %.2f V, below even a typical part's %.2f V (worst-case dropout %.2f V)", head, thr, drop)
 		default:
-			add("voltages.headroom", 0.9, 0.3, "headroom %.2f V, above the %.2f V this part needs here", head, thr)
+			add("voltages.headroom", 0.9, 0.3, "headroom %.2f V, above a typical part's %.2f V (worst-case dropout %.2f V)", head, thr, drop)
 		}
 	}
 	// Regulator current against the rating.
@@ -526,7 +523,10 @@ func likelihoods(h Hypothesis, ev *Evidence, op *opPoint) []Reason {
 		i := out.Amps.V
 		share := 0.0
 		if b := ev.Bypass; b != nil && b.Ohms.V > 0 && haveIn && haveOut {
-			share = math.Max(0, math.Abs(vin-vout)/b.Ohms.V)
+			// The resistor's share, the same rule as replacement's (circuit.Bypass).
+			if br, err := (circuit.Bypass{ROhm: b.Ohms.V, VinMinV: math.Abs(vin), VinMaxV: math.Abs(vin), VoutV: math.Abs(vout), LoadMinA: i, LoadMaxA: i}).Solve(); err == nil {
+				share = br.ResistorMinA
+			}
 		}
 		ireg := math.Max(0, i-share)
 		rating := f.Current(pk)
@@ -555,22 +555,12 @@ func likelihoods(h Hypothesis, ev *Evidence, op *opPoint) []Reason {
 	}
 	peak, from := inPeak.V, inPeak.At
 	if peak > 0 {
-		limit := f.VinMax(h.VoutV)
-		what := "input maximum"
-		if f.Adjustable() {
-			if h.VoutV > 0 {
-				limit = f.VdiffMaxV + h.VoutV
-				what = "input-output maximum plus the output"
-			} else {
-				limit = f.VdiffMaxV
-				what = "input-output maximum"
-			}
-			if f.VinMaxV > 0 && f.VinMaxV < limit {
-				limit, what = f.VinMaxV, "input maximum"
-			}
-		}
-		if f.Switching() {
-			limit = f.VinMaxV
+		// A part that has been running stood its running limit (start-up is
+		// replacement's question): the same rule, catalog.Family.InputLimit.
+		il := f.InputLimit(h.VoutV)
+		limit, what := il.RunV, il.What
+		if f.Adjustable() && h.VoutV > 0 && limit > il.StartV {
+			what += " plus the output"
 		}
 		if limit > 0 {
 			q := peak / limit
@@ -622,12 +612,12 @@ func likelihoods(h Hypothesis, ev *Evidence, op *opPoint) []Reason {
 		case !found:
 			add("marking", 0.01, 0.1, "marking %q fits no marking of %s", ev.Marking, f.ID)
 		case m.How == "fuzzy" || !voltOK:
-			add("marking", 0.05, 0.1, "marking %q: %s fits %s's markings, but not this variant", ev.Marking, m.Detail, f.ID)
+			add("marking", 0.05, 0.1, "marking %q %s; not this variant", ev.Marking, m.Detail)
 		case !outlineOK:
 			n := math.Max(m.Score-2, 0)
-			add("marking", 0.9, 0.9*math.Pow(4, -n), "marking %q: %s; not this package", ev.Marking, m.Detail)
+			add("marking", 0.9, 0.9*math.Pow(4, -n), "marking %q %s; not this package", ev.Marking, m.Detail)
 		default:
-			add("marking", 0.9, 0.9*math.Pow(4, -math.Max(m.Score, 0)), "marking %q: %s", ev.Marking, m.Detail)
+			add("marking", 0.9, 0.9*math.Pow(4, -math.Max(m.Score, 0)), "marking %q %s", ev.Marking, m.Detail)
 		}
 	}
 	return rs
