@@ -392,3 +392,26 @@ func hasPartNumber(toks []token) bool {
 	}
 	return false
 }
+
+// Resolve returns the family a name stands for: the family with that id,
+// else the one family a part number decodes to ([DecodeMarking]) ahead of
+// every other. When no family fits, or several fit equally well, f is nil
+// and alts lists the best equal readings (none when nothing fits).
+func Resolve(c *Catalog, name string) (f *Family, read Hit, alts []Hit) {
+	if f := c.Family(name); f != nil {
+		return f, Hit{}, nil
+	}
+	hits := DecodeMarking(c, name).Hits
+	if len(hits) == 0 {
+		return nil, Hit{}, nil
+	}
+	if len(hits) == 1 || hits[1].Score < hits[0].Score {
+		return hits[0].Family, hits[0], nil
+	}
+	for _, h := range hits {
+		if h.Score == hits[0].Score {
+			alts = append(alts, h)
+		}
+	}
+	return nil, Hit{}, alts
+}

@@ -304,3 +304,21 @@ func FuzzDecodeMarking(f *testing.F) {
 // mixed reports whether a marking has more than one group (a transistor
 // number beside a regulator number).
 func mixed(s string) bool { return len(strings.Fields(s)) > 1 }
+
+func TestResolve(t *testing.T) {
+	c := builtinCatalog(t)
+	for _, tt := range []struct{ name, want string }{
+		{"317", "317"}, {"78xx", "78xx"}, {"7805", "78xx"}, {"LM7912CT", "79xx"}, {"LD1117V33", "1117"},
+		{"LM3*K", ""}, // several 3xx families, equally
+		{"QQZZX", ""},
+	} {
+		f, _, _ := catalog.Resolve(c, tt.name)
+		got := ""
+		if f != nil {
+			got = f.ID
+		}
+		if got != tt.want {
+			t.Errorf("Resolve(%q) = %q, want %q", tt.name, got, tt.want)
+		}
+	}
+}
