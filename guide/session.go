@@ -41,6 +41,10 @@ type Leader struct {
 	VoutV       float64 // output voltage with its sign; 0 when unknown
 	Probability float64 // posterior probability, 0 to 1
 	Label       string  // "78xx TO-220 5 V"
+	Title       string  // the family's title, e.g. "positive adjustable, 1.5 A"
+	// Device says what a look-alike that is not a regulator is ("npn",
+	// "shunt-ref", …; the catalog's device words); "" for a regulator.
+	Device string
 }
 
 // Ranking is what the identification makes of one evidence document.
