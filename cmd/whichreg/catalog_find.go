@@ -5,6 +5,7 @@ import (
 
 	"github.com/spf13/cobra"
 	"github.com/whichreg/whichreg/catalog"
+	"github.com/whichreg/whichreg/report"
 )
 
 type catalogFindOptions struct {
@@ -38,14 +39,14 @@ legible characters follow.`,
 	return cmd
 }
 
-// findHitJSON is one hit of `catalog find --format json`.
+// findHitJSON is one hit of `catalog find --format json` (contract:
+// id, kind, vout_v, outline, score, detail).
 type findHitJSON struct {
 	ID      string    `json:"id"`
-	Title   string    `json:"title"`
-	How     string    `json:"how"`
-	Pattern string    `json:"pattern"`
+	Kind    string    `json:"kind"`
 	VoutV   []float64 `json:"vout_v"`
-	Score   int       `json:"score"`
+	Outline string    `json:"outline"`
+	Score   float64   `json:"score"`
 	Detail  string    `json:"detail"`
 }
 
@@ -63,9 +64,9 @@ func catalogFindRun(opts *catalogFindOptions) error {
 			if v == nil {
 				v = []float64{}
 			}
-			res = append(res, findHitJSON{h.Family.ID, h.Family.Title, h.How, h.Pattern, v, h.Score, h.Detail})
+			res = append(res, findHitJSON{h.Family.ID, string(h.Family.Kind), v, h.Outline, h.Score, h.Detail})
 		}
-		return writeJSON(out, map[string]any{"query": opts.Pattern, "hits": res})
+		return writeJSON(out, map[string]any{"schema": "whichreg/catalog-find/v1", "query": opts.Pattern, "hits": res})
 	}
 	if len(hits) == 0 {
 		fmt.Fprintf(out, "no family matches %q\n", opts.Pattern)
@@ -74,8 +75,10 @@ func catalogFindRun(opts *catalogFindOptions) error {
 		}
 		return nil
 	}
+	width := opts.app.Width()
 	for i, h := range hits {
-		fmt.Fprintf(out, "%2d. %-10s %-8s %s\n    %s\n", i+1, h.Family.ID, h.How, h.Family.Title, h.Detail)
+		fmt.Fprintf(out, "%2d. %-10s %-8s %s\n", i+1, h.Family.ID, h.How, h.Family.Title)
+		report.Fill(out, h.Detail, width, "    ", "      ")
 	}
 	return nil
 }
