@@ -47,6 +47,11 @@ type candidate struct {
 	end     int
 }
 
+// known is how many characters around the number the tables explain: of
+// two readings with the same score, the one that explains more wins
+// ("7805 CT" read as one group names the package).
+func (cd *candidate) known() int { return cd.pre.known + cd.suf.known }
+
 // family returns the family's best reading of the marking, if any.
 func (r *reader) family(f *Family) (Hit, bool) {
 	nonReg := f.NonRegulator()
@@ -90,7 +95,8 @@ func (r *reader) family(f *Family) (Hit, bool) {
 					}
 					cd := r.judge(f, cr, ti, i, j, s, pre)
 					switch {
-					case best == nil || cd.score > best.score+1e-9:
+					case best == nil || cd.score > best.score+1e-9 ||
+						(math.Abs(cd.score-best.score) < 1e-9 && cd.known() > best.known() && cd.core.vout == best.core.vout):
 						cdc := cd
 						best, ties = &cdc, append(ties[:0], cd.volts...)
 					case math.Abs(cd.score-best.score) < 1e-9 && cr.vout > 0 && best.core.vout > 0:
@@ -278,7 +284,7 @@ func (r *reader) byDevice(have []Hit) []Hit {
 	}
 	for ti := range r.toks {
 		t := &r.toks[ti]
-		if t.tran == "" {
+		if t.tran == "" || transistorPrefix(t.q) != t.tran {
 			continue
 		}
 		for _, f := range r.c.Sorted() {

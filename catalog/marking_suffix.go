@@ -86,6 +86,7 @@ type suffixRead struct {
 	adj     bool      // ADJ
 	date    string    // a date code run on to the number
 	cost    float64
+	known   int      // characters the tables explain
 	text    string   // the suffix as read, "" when empty
 	notes   []string // what was not understood
 }
@@ -102,6 +103,7 @@ func readSuffix(s, maker string) suffixRead {
 	best := p.parse(0, stPre)
 	r.outline, r.code, r.volts, r.vtext, r.adj, r.date = best.outline, best.code, best.volts, best.vtext, best.adj, best.date
 	r.cost += best.cost
+	r.known = best.known
 	if best.unknown != "" {
 		r.notes = append(r.notes, fmt.Sprintf("%q not understood", best.unknown))
 	}

@@ -322,3 +322,24 @@ func TestResolve(t *testing.T) {
 		}
 	}
 }
+
+// TestMarkingGroups: a number split over two groups is read as one; a
+// transistor number split so is still no regulator.
+func TestMarkingGroups(t *testing.T) {
+	c := builtinCatalog(t)
+	for _, tt := range []struct{ q, family, outline string }{
+		{"LM 317T", "317", "TO-220"},
+		{"7805 CT", "78xx", "TO-220"},
+		{"ST L7805CV", "78xx", "TO-220"},
+	} {
+		h := firstHit(catalog.Find(c, tt.q))
+		if h == nil || h.Family.ID != tt.family || h.Outline != tt.outline {
+			t.Errorf("Find(%q) = %+v, want %s %s", tt.q, h, tt.family, tt.outline)
+		}
+	}
+	for _, h := range catalog.Find(c, "BC 337") {
+		if !h.Family.NonRegulator() {
+			t.Errorf("BC 337 found regulator %s", h.Family.ID)
+		}
+	}
+}
