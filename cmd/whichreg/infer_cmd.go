@@ -59,7 +59,7 @@ func inferRun(o *inferOptions) error {
 	if err != nil {
 		return err
 	}
-	explain := 0 // JSON: every candidate's reasons
+	explain := infer.ExplainAll // JSON: every candidate's reasons
 	if o.Format != "json" {
 		explain = max(o.Why, topOr(o.Top, 8))
 	}
