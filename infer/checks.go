@@ -206,8 +206,8 @@ func (sc *scene) markingSlip(res *Result) []string {
 			return nil
 		}
 	}
-	return []string{fmt.Sprintf("the marking %q reads as a %s V part (%s) but the output measures %.2f V: a misread digit, a lifted ground or a failed part; "+
-		"look at the marking again under a loupe before trusting either", sc.ev.Marking, trimFloat(sc.codeVolts[0]), strings.Trim(sc.codeAs, "*"), out)}
+	return []string{fmt.Sprintf("the marking %q reads as a %s V part but the output measures %.2f V: a misread digit, a lifted ground or a failed part; "+
+		"look at the marking again under a loupe before trusting either", sc.ev.Marking, trimFloat(sc.codeVolts[0]), out)}
 }
 
 // reversedLeads: every reading has one sign while the wiring and outline

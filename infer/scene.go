@@ -15,42 +15,24 @@ type scene struct {
 	ev    *Evidence
 	input *Operating // the input model (peak only), shared with replacement
 
-	marking    string // normalised
-	legible    bool
-	nLegible   int // legible characters of the marking
-	fuzzyHit   map[string]bool
-	codeVolts  []float64 // the output voltages the marking's voltage code reads as
-	codeAs     string    // the marking as the catalog pattern reads it, e.g. "LM7812"
-	matches    map[markKey]markMatch
-	expansions map[*catalog.Family][]catalog.Expansion
+	legible   bool
+	marks     map[string]catalog.Hit // the marking decoded, by family id (the best hit)
+	codeVolts []float64              // the output voltages the marking's voltage code reads as
 
 	text bool // format reason texts
 }
 
-// markKey and markMatch cache the marking match of a family at a voltage.
-type markKey struct {
-	f    *catalog.Family
-	vout float64
-}
-
-type markMatch struct {
-	e  catalog.Expansion
-	n  int
-	ok bool
-}
-
 // newScene prepares the marking matches and the input model.
 func newScene(c *catalog.Catalog, ev *Evidence) (*scene, error) {
-	sc := &scene{c: c, ev: ev, marking: catalog.NormalizeMarking(ev.Marking),
-		matches: map[markKey]markMatch{}, expansions: map[*catalog.Family][]catalog.Expansion{}}
-	sc.legible = catalog.Legible(sc.marking)
-	sc.nLegible = len(catalog.StripWildcards(sc.marking))
+	sc := &scene{c: c, ev: ev, legible: catalog.Legible(catalog.NormalizeMarking(ev.Marking))}
 	if sc.legible {
-		sc.fuzzyHit = map[string]bool{}
+		sc.marks = map[string]catalog.Hit{}
 		for _, h := range catalog.Find(c, ev.Marking) {
-			sc.fuzzyHit[h.Family.ID] = true
+			if _, have := sc.marks[h.Family.ID]; !have {
+				sc.marks[h.Family.ID] = h
+			}
 			if h.How == "wildcard" && len(h.VoutV) > 0 && sc.codeVolts == nil {
-				sc.codeVolts, sc.codeAs = h.VoutV, h.Expanded
+				sc.codeVolts = h.VoutV
 			}
 		}
 	}

@@ -243,9 +243,9 @@ func checkReplacement(c *catalog.Catalog, ev *Evidence, orig, h Hypothesis, cd *
 
 	// Polarity.
 	if f.Polarity != of.Polarity {
-		add(Check{"polarity", f.Polarity, of.Polarity, -1, Fail, fmt.Sprintf("a %s regulator cannot replace a %s one", f.Polarity, of.Polarity)})
+		add(Check{"polarity", f.Polarity.String(), of.Polarity.String(), -1, Fail, fmt.Sprintf("a %s regulator cannot replace a %s one", f.Polarity, of.Polarity)})
 	} else {
-		add(Check{"polarity", f.Polarity, of.Polarity, 1, Pass, "same polarity"})
+		add(Check{"polarity", f.Polarity.String(), of.Polarity.String(), 1, Pass, "same polarity"})
 	}
 
 	// Lead-by-lead function.

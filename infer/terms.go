@@ -119,7 +119,7 @@ type voltsView struct {
 	haveCom  bool
 	outFn    string // OUT or FB
 	sign     float64
-	polarity string
+	polarity catalog.Polarity
 }
 
 func viewOf(h Hypothesis, ev *Evidence) voltsView {

@@ -2,37 +2,30 @@ package infer
 
 import (
 	"math"
-
-	"github.com/whichreg/whichreg/catalog"
 )
 
-// termMarking weighs the legible marking. A fit confirming n legible
-// characters is worth n·ln 4 (a character read by chance matches about one
-// time in four among the characters regulator markings use; common
-// practice, no source).
+// termMarking weighs the legible marking, decoded by the catalog (prefix,
+// number, voltage, package suffix; date codes left out): a fit confirming n
+// characters of the number is worth n·ln 4 (a character read by chance
+// matches about one time in four among the characters regulator markings
+// use; common practice, no source). A package suffix that names another
+// outline takes two characters' worth off.
 func termMarking(sc *scene, h Hypothesis, _ voltsView, r *reasons) {
 	if !sc.legible {
 		return
 	}
-	f := h.Family
-	k := markKey{f, h.VoutV}
-	m, seen := sc.matches[k]
-	if !seen {
-		exps, have := sc.expansions[f]
-		if !have {
-			exps = f.Expand()
-			sc.expansions[f] = exps
-		}
-		m.e, m.n, m.ok = catalog.BestMatch(exps, sc.marking, h.VoutV)
-		sc.matches[k] = m
-	}
-	ev := sc.ev
+	ev, f := sc.ev, h.Family
+	m, found := sc.marks[f.ID]
+	voltOK, outlineOK := m.Fits(h.Outline, h.VoutV)
 	switch {
-	case m.ok:
-		r.add("marking", 0.9, 0.9*math.Pow(4, -float64(m.n)), "marking %q fits %s (%d of %d legible characters confirmed)", ev.Marking, m.e.Expanded, m.n, sc.nLegible)
-	case sc.fuzzyHit[f.ID]:
-		r.add("marking", 0.05, 0.1, "marking %q: the legible characters appear in %s's markings, but no pattern fits this variant", ev.Marking, f.ID)
-	default:
+	case !found:
 		r.add("marking", 0.01, 0.1, "marking %q fits no marking of %s", ev.Marking, f.ID)
+	case m.How == "fuzzy" || !voltOK:
+		r.add("marking", 0.05, 0.1, "marking %q %s; not this variant", ev.Marking, m.Detail)
+	case !outlineOK:
+		n := math.Max(m.Score-2, 0)
+		r.add("marking", 0.9, 0.9*math.Pow(4, -n), "marking %q %s; not this package", ev.Marking, m.Detail)
+	default:
+		r.add("marking", 0.9, 0.9*math.Pow(4, -math.Max(m.Score, 0)), "marking %q %s", ev.Marking, m.Detail)
 	}
 }

@@ -2,8 +2,6 @@ package main
 
 import (
 	"bytes"
-	"crypto/sha256"
-	"encoding/hex"
 	"encoding/json"
 	"fmt"
 	"io"
@@ -61,6 +59,9 @@ regulation threshold marked.`,
 			if opts.Choose == "" {
 				return flagErrorf("--choose ID[:OUTLINE] is required: run 'whichreg swap %s' to see the candidates", opts.File)
 			}
+			if opts.Figure == "-" && (opts.Output == "" || opts.Output == "-") {
+				return flagErrorf("--figure - writes the figure to stdout: give the record a file with -o FILE")
+			}
 			if runF != nil {
 				return runF(opts)
 			}
@@ -70,8 +71,8 @@ regulation threshold marked.`,
 	addFormatFlag(cmd, &opts.Format, "markdown", "json")
 	cmd.Flags().StringVar(&opts.Choose, "choose", "", "the chosen replacement `ID[:OUTLINE]`")
 	cmd.Flags().StringVar(&opts.Original, "original", "", "the original part as `ID[:OUTLINE[:VOUT]]` instead of infer's leader")
-	cmd.Flags().StringVarP(&opts.Output, "output", "o", "", "write the record to `FILE` (default: standard output)")
-	cmd.Flags().StringVar(&opts.Figure, "figure", "", "also write the input waveform as `FILE.svg`")
+	cmd.Flags().StringVarP(&opts.Output, "output", "o", "", "write the record to `FILE` (default, or -: standard output)")
+	cmd.Flags().StringVar(&opts.Figure, "figure", "", "also write the input waveform as `FILE.svg` (-: standard output, with -o FILE)")
 	cmd.Flags().BoolVar(&opts.Force, "force", false, "replace existing files")
 	return cmd
 }
@@ -102,18 +103,6 @@ type runnerUpJSON struct {
 	Candidate string `json:"candidate"`
 	Verdict   string `json:"verdict"`
 	WhyNot    string `json:"why_not"`
-}
-
-func catalogHash(c *catalog.Catalog) string {
-	type dump struct {
-		Outlines []catalog.Outline
-		Families []*catalog.Family
-	}
-	outs := append([]catalog.Outline(nil), c.Outlines...)
-	sort.Slice(outs, func(i, j int) bool { return outs[i].Name < outs[j].Name })
-	b, _ := json.Marshal(dump{outs, c.Sorted()})
-	sum := sha256.Sum256(b)
-	return hex.EncodeToString(sum[:])
 }
 
 func recordRun(o *recordOptions) error {
@@ -152,6 +141,15 @@ func recordRun(o *recordOptions) error {
 // writeRecordFiles writes the record and figure, or nothing: if the second
 // file cannot be written the first is removed again.
 func writeRecordFiles(o *recordOptions, body, fig []byte) error {
+	if o.Figure == "-" {
+		// The figure goes to stdout, the record to its file (checked in RunE).
+		if err := writeFileAtomic(o.Output, body, o.Force); err != nil {
+			return err
+		}
+		fmt.Fprintf(o.app.IO.ErrOut, "wrote %s\n", o.Output)
+		_, err := o.app.IO.Out.Write(fig)
+		return err
+	}
 	if o.Output == "" || o.Output == "-" {
 		if fig != nil {
 			if err := writeFileAtomic(o.Figure, fig, o.Force); err != nil {
@@ -206,12 +204,12 @@ func buildRecord(app *App, c *catalog.Catalog, ev *infer.Evidence, ires *infer.R
 	sj := swapJSONOf(sres)
 	rec := recordJSON{
 		Title: "Regulator substitution record", Ref: ev.Ref, Equipment: ev.Equipment,
-		Date: app.Now().Format("2006-01-02"), Tool: "whichreg " + version, CatalogSHA256: catalogHash(c),
+		Date: app.Now().Format("2006-01-02"), Tool: "whichreg " + version, CatalogSHA256: c.Hash(),
 		EvidenceFile: ev.File, Evidence: ev, NotInCatalog: round(ires.NotInCatalog, 6), Conflicts: ires.Conflicts,
 		Original: sj.Original, Conditions: sres.Conditions, Assumptions: sres.Assumptions, Safety: safetyCautions,
 		SignOff: map[string]string{"fitted_by": "", "fitted_date": "", "verified_by": "", "verified_date": "", "measured_output_v": "", "case_temp_after_10_min_c": ""},
 	}
-	ij := inferJSONOf(ires, 5)
+	ij := recordIdentOf(ires, 5)
 	rec.Identification = ij.Candidates
 	for i, r := range sres.Replacements {
 		if &sres.Replacements[i] == chosen {

@@ -297,7 +297,7 @@ func writeSwapText(w io.Writer, res *infer.SwapResult, details int) {
 			fmt.Fprintf(w, "  - %s\n", in)
 		}
 	}
-	writeList(w, "Assumed:", res.Assumptions)
+	writeList(w, 80, "Assumed:", res.Assumptions)
 	fmt.Fprintln(w, "\nSafety: unplug and discharge the filter capacitors before desoldering; tabs and heat sinks may be live or hot. Confirm against the maker's datasheet.")
 }
 
