@@ -91,6 +91,10 @@ type Package struct {
 	Status Status `toml:"status" json:"status,omitempty"`
 	// Note is a remark on this variant (pinout caveats, sources of doubt).
 	Note string `toml:"note" json:"note,omitempty"`
+	// OrderCodes are two or three current order codes for this package, as
+	// examples from the makers' ordering tables (one voltage where the family
+	// has several); empty for parts no longer made.
+	OrderCodes []string `toml:"order_codes" json:"order_codes,omitempty"`
 }
 
 // Family is a group of parts sold under one generic designation.
@@ -124,6 +128,10 @@ type Family struct {
 	// Tolerance is the output (or reference) tolerance over line, load and
 	// temperature, as a fraction.
 	Tolerance float64 `toml:"tolerance" json:"tolerance"`
+	// Tolerance25C is the tighter tolerance the datasheet gives at 25 °C
+	// junction temperature, as a fraction; 0 = not stated. Checks use
+	// Tolerance, the overall figure.
+	Tolerance25C float64 `toml:"tolerance_25c" json:"tolerance_25c,omitempty"`
 	// CurrentA is the rated output current, amperes.
 	CurrentA float64 `toml:"current_a" json:"current_a"`
 	// VinMaxV is a fixed part's absolute maximum input (magnitude), volts;

@@ -152,6 +152,9 @@ func lintFamily(c *Catalog, f *Family, errs *ErrorList) {
 	if f.Cout.ESRMaxOhm > 0 && f.Cout.ESRMinOhm > f.Cout.ESRMaxOhm {
 		p.add(errs, "cout.esr_min_ohm", "esr_min_ohm %g is above esr_max_ohm %g; swap them", f.Cout.ESRMinOhm, f.Cout.ESRMaxOhm)
 	}
+	if f.Tolerance25C < 0 || bad(f.Tolerance25C) || (f.Tolerance25C > 0 && f.Tolerance > 0 && f.Tolerance25C > f.Tolerance) {
+		p.add(errs, "tolerance_25c", "tolerance_25c = %g must be a fraction no larger than the overall tolerance %g", f.Tolerance25C, f.Tolerance)
+	}
 	if f.IqTypMA > 0 && f.IqMA > 0 && f.IqTypMA > f.IqMA {
 		p.add(errs, "iq_typ_ma", "iq_typ_ma %g is above the maximum iq_ma %g", f.IqTypMA, f.IqMA)
 	}
@@ -273,6 +276,11 @@ func lintPackage(c *Catalog, f *Family, i int, errs *ErrorList) {
 	}
 	if pk.CurrentA < 0 || bad(pk.CurrentA) {
 		p.add(errs, key("current_a"), "current_a = %g is impossible", pk.CurrentA)
+	}
+	for j, code := range pk.OrderCodes {
+		if code == "" || len(code) > 40 || strings.ContainsAny(code, " \t\n") {
+			p.add(errs, key("order_codes"), "order_codes[%d] = %q is not an order code; give the maker's code as printed in its ordering table, without spaces", j, code)
+		}
 	}
 	if pk.Status != "" && !isWord(pk.Status, Statuses()) {
 		p.add(errs, key("status"), "status %q is not one of %s", pk.Status, quoteWords(Statuses()))

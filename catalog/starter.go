@@ -37,7 +37,8 @@ pass = "npn"                    # npn | npn-ldo | pnp | switching
 outputs_v = [5]                 # fixed: the standard voltages (magnitudes)
 vref_v = 0                      # adjustable: OUT minus ADJ, volts
 vout_max_v = 0                  # adjustable: highest output, volts
-tolerance = 0.04                # fraction, over line, load and temperature
+tolerance = 0.05                # fraction, over line, load and temperature (4.75-5.25 V: 0.05)
+tolerance_25c = 0.04            # the tighter figure at 25 C, if the datasheet gives one
 current_a = 1.0                 # rated output current, amperes
 vin_max_v = 35                  # fixed: absolute maximum input, volts
 vin_max_high_v = 0              # fixed: the limit of the higher-voltage members
@@ -68,4 +69,5 @@ notes = []
   current_a = 0                 # 0 = the family's rating
   status = ""                   # "" = the family's status
   note = ""
+  order_codes = []              # current order codes from the makers' ordering tables, e.g. ["L7805CV"]
 `

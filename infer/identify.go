@@ -115,10 +115,11 @@ var wiredLikelihood = map[string]map[Wiring]float64{
 	catalog.PinAdj: {WiredNetwork: 0.85, WiredGround: 0.10, WiredLoad: 0.02, WiredUnregulated: 0.015, WiredOpen: 0.015},
 	catalog.PinNC:  {WiredOpen: 0.70, WiredGround: 0.1, WiredNetwork: 0.05, WiredLoad: 0.1, WiredUnregulated: 0.05},
 	catalog.PinEn:  {WiredGround: 0.70, WiredNetwork: 0.1, WiredUnregulated: 0.1, WiredLoad: 0.05, WiredOpen: 0.05},
+	catalog.PinInh: {WiredGround: 0.70, WiredNetwork: 0.1, WiredUnregulated: 0.1, WiredLoad: 0.05, WiredOpen: 0.05},
 }
 
 var functionWords = map[string]string{
-	catalog.PinIn: "IN", catalog.PinOut: "OUT", catalog.PinGnd: "GND", catalog.PinAdj: "ADJ", catalog.PinNC: "NC", catalog.PinEn: "EN",
+	catalog.PinIn: "IN", catalog.PinOut: "OUT", catalog.PinGnd: "GND", catalog.PinAdj: "ADJ", catalog.PinNC: "NC", catalog.PinEn: "EN", catalog.PinInh: "INH",
 }
 
 // typicalHeadroom is the fraction of the datasheet's worst-case dropout

@@ -2,8 +2,6 @@ package main
 
 import (
 	"bytes"
-	"crypto/sha256"
-	"encoding/hex"
 	"encoding/json"
 	"fmt"
 	"io"
@@ -107,18 +105,6 @@ type runnerUpJSON struct {
 	WhyNot    string `json:"why_not"`
 }
 
-func catalogHash(c *catalog.Catalog) string {
-	type dump struct {
-		Outlines []catalog.Outline
-		Families []*catalog.Family
-	}
-	outs := append([]catalog.Outline(nil), c.Outlines...)
-	sort.Slice(outs, func(i, j int) bool { return outs[i].Name < outs[j].Name })
-	b, _ := json.Marshal(dump{outs, c.Sorted()})
-	sum := sha256.Sum256(b)
-	return hex.EncodeToString(sum[:])
-}
-
 func recordRun(o *recordOptions) error {
 	st, err := prepareSwap(o.app, o.File, o.Original, true)
 	if err != nil {
@@ -218,7 +204,7 @@ func buildRecord(app *App, c *catalog.Catalog, ev *infer.Evidence, ires *infer.R
 	sj := swapJSONOf(sres)
 	rec := recordJSON{
 		Title: "Regulator substitution record", Ref: ev.Ref, Equipment: ev.Equipment,
-		Date: app.Now().Format("2006-01-02"), Tool: "whichreg " + version, CatalogSHA256: catalogHash(c),
+		Date: app.Now().Format("2006-01-02"), Tool: "whichreg " + version, CatalogSHA256: c.Hash(),
 		EvidenceFile: ev.File, Evidence: ev, NotInCatalog: round(ires.NotInCatalog, 6), Conflicts: ires.Conflicts,
 		Original: sj.Original, Conditions: sres.Conditions, Assumptions: sres.Assumptions, Safety: safetyCautions,
 		SignOff: map[string]string{"fitted_by": "", "fitted_date": "", "verified_by": "", "verified_date": "", "measured_output_v": "", "case_temp_after_10_min_c": ""},

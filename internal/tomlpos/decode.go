@@ -111,14 +111,6 @@ func (l ErrorList) Sort() {
 	})
 }
 
-// Err returns the list as an error, or nil when it is empty.
-func (l ErrorList) Err() error {
-	if len(l) == 0 {
-		return nil
-	}
-	return l
-}
-
 // Error returns the first error and how many more there are.
 func (l ErrorList) Error() string {
 	switch len(l) {
