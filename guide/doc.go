@@ -31,6 +31,10 @@
 //
 // The session ends when the leader reaches [Options.Stop] (95 %), or when no
 // remaining measurement is expected to gain [Options.MinGain] (0.05 bit).
+// Before it gives up short of the stop probability it asks each lead's
+// voltage that is still open: the gain estimate of a lead voltage is coarse
+// (a lifted ground and a true ground are one class of outcome), and the
+// reading costs one touch of a probe.
 //
 // The package prints nothing and reads no flags: cmd/whichreg's guide
 // command renders the steps as lines of text or JSON.

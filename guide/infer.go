@@ -42,7 +42,7 @@ func (in Infer) Rank(name string, doc []byte) (*Ranking, error) {
 			v = -v
 		}
 		r.Leaders = append(r.Leaders, Leader{Family: c.Family.ID, Package: c.Package.Outline, VoutV: v,
-			Probability: c.Probability, Label: c.Label()})
+			Probability: c.Probability, Label: c.Label(), Title: c.Family.Title, Device: string(c.Family.Device)})
 		if i == 0 {
 			for _, rs := range c.Reasons {
 				r.Reasons = append(r.Reasons, fmt.Sprintf("%+6.2f  %-16s %s", rs.Weight, rs.Evidence, rs.Text))

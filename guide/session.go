@@ -41,6 +41,10 @@ type Leader struct {
 	VoutV       float64 // output voltage with its sign; 0 when unknown
 	Probability float64 // posterior probability, 0 to 1
 	Label       string  // "78xx TO-220 5 V"
+	Title       string  // the family's title, e.g. "positive adjustable, 1.5 A"
+	// Device says what a look-alike that is not a regulator is ("npn",
+	// "shunt-ref", …; the catalog's device words); "" for a regulator.
+	Device string
 }
 
 // Ranking is what the identification makes of one evidence document.
@@ -188,16 +192,36 @@ func (s *Session) Next() Step {
 	default:
 		lead := s.leader()
 		qs := s.open()
+		lv := leadVoltage(qs)
 		switch {
 		case lead.Probability >= s.opts.Stop:
 			st.Done = s.finish(fmt.Sprintf("the leader reached %.0f %%", 100*s.opts.Stop))
-		case len(qs) == 0 || qs[0].GainBits < s.opts.MinGain:
-			st.Done = s.finish(fmt.Sprintf("no remaining measurement is worth asking (expected gain under %g bit)", s.opts.MinGain))
-		default:
+		case len(qs) > 0 && qs[0].GainBits >= s.opts.MinGain:
 			st.Ask = &qs[0]
+		case lv != nil:
+			st.Ask = lv
+		default:
+			st.Done = s.finish(fmt.Sprintf("no remaining measurement is worth asking (expected gain under %g bit)", s.opts.MinGain))
 		}
 	}
 	return st
+}
+
+// leadVoltage returns the first open question for a lead's voltage.
+//
+// The expected gain of a lead voltage is estimated from coarse classes of
+// outcome: a true ground and a lifted ground (a 5 V part raised to 6.1 V by
+// a divider) are one class, so a reading that would settle the question can
+// be estimated at almost nothing. Each lead's voltage is one touch of a
+// probe and the first thing a technician measures, so the session asks every
+// open lead voltage once before it gives up short of the stop probability.
+func leadVoltage(qs []Question) *Question {
+	for i := range qs {
+		if strings.HasPrefix(qs[i].Key, "pins.") && strings.HasSuffix(qs[i].Key, ".volts") {
+			return &qs[i]
+		}
+	}
+	return nil
 }
 
 // Quit ends the session with the reason given (the front end's, for a

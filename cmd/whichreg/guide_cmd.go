@@ -7,8 +7,10 @@ import (
 	"io"
 	"io/fs"
 	"os"
+	"os/signal"
 	"regexp"
 	"strings"
+	"syscall"
 
 	"github.com/spf13/cobra"
 
@@ -115,8 +117,13 @@ func guideRun(o *guideOptions) error {
 	if o.Format == "json" {
 		r = &jsonGuide{w: o.app.IO.Out}
 	}
-	in := bufio.NewScanner(o.app.IO.In)
-	in.Buffer(make([]byte, 4096), 64<<10)
+	lines, readErr, stop := readLines(o.app.IO.In)
+	defer close(stop)
+	// Ctrl-C, a closed terminal or a kill ends the session between steps:
+	// never in the middle of writing the file.
+	sig := make(chan os.Signal, 1)
+	signal.Notify(sig, os.Interrupt, syscall.SIGHUP, syscall.SIGTERM)
+	defer signal.Stop(sig)
 	var last *guide.Reply
 	for {
 		st := s.Next()
@@ -130,20 +137,50 @@ func guideRun(o *guideOptions) error {
 				return ioError(fmt.Errorf("writing the output: %v", err))
 			}
 		}
-		if !in.Scan() {
-			if err := in.Err(); err != nil {
-				return ioError(fmt.Errorf("reading the answers: %v", err))
-			}
-			r.done(guide.Step{Done: s.Quit("the input ended"), Ranking: st.Ranking, Asked: s.Asked()}, nil)
+		var line string
+		select {
+		case <-sig:
+			r.done(guide.Step{Done: s.Quit("interrupted"), Ranking: st.Ranking, Asked: s.Asked()}, nil)
 			return nil
+		case l, ok := <-lines:
+			if !ok {
+				if err := <-readErr; err != nil {
+					return ioError(fmt.Errorf("reading the answers: %v", err), "the evidence file holds every answer accepted")
+				}
+				r.done(guide.Step{Done: s.Quit("the input ended"), Ranking: st.Ranking, Asked: s.Asked()}, nil)
+				return nil
+			}
+			line = l
 		}
-		rep, err := s.Reply(in.Text())
+		rep, err := s.Reply(line)
 		if err != nil {
 			return ioError(err, "the evidence file holds every answer accepted before this one")
 		}
 		last = &rep
-		r.reply(in.Text(), rep)
+		r.reply(line, rep)
 	}
+}
+
+// readLines reads r line by line on its own goroutine, so that a signal
+// can end the session while it waits for an answer. The lines channel is
+// closed at the end of the input, and then readErr holds the read error
+// (nil at a plain end); closing stop lets the goroutine go.
+func readLines(r io.Reader) (lines <-chan string, readErr <-chan error, stop chan struct{}) {
+	out, errc, stop := make(chan string), make(chan error, 1), make(chan struct{})
+	go func() {
+		defer close(out)
+		sc := bufio.NewScanner(r)
+		sc.Buffer(make([]byte, 4096), 64<<10)
+		for sc.Scan() {
+			select {
+			case out <- sc.Text():
+			case <-stop:
+				return
+			}
+		}
+		errc <- sc.Err()
+	}()
+	return out, errc, stop
 }
 
 // newFile names the evidence file after the board reference: the file
@@ -178,14 +215,6 @@ func (o *guideOptions) color() bool {
 		getenv = os.Getenv
 	}
 	return isTerminal(o.app.IO.Out) && getenv("NO_COLOR") == "" && getenv("TERM") != "dumb" && getenv("TERM") != ""
-}
-
-// swapLine is the command to run once the part is known.
-func swapLine(file string) string {
-	if regexp.MustCompile(`^[A-Za-z0-9_./+-]+$`).MatchString(file) {
-		return "whichreg swap " + file
-	}
-	return "whichreg swap '" + strings.ReplaceAll(file, "'", `'\''`) + "'"
 }
 
 // guideRenderer writes the steps of a session as text or JSON lines.
@@ -333,9 +362,43 @@ func (t *textGuide) done(st guide.Step, _ *guide.Reply) {
 		t.line("  nothing was written")
 		return
 	}
-	t.line("  evidence: %s (%d answers this session)", d.File, st.Asked)
+	t.line("  evidence: %s (%s this session)", d.File, plural(st.Asked, "answer"))
+	if r := st.Ranking; r != nil && r.NotInCatalog > d.Leader.Probability {
+		t.fill(fmt.Sprintf("\"Not in the catalog\" is more likely (%.1f %%): the readings fit no known part well; check them, and the lead numbering.", 100*r.NotInCatalog), "  ", "  ")
+	}
+	if d.Leader.Device != "" {
+		t.fill(fmt.Sprintf("The leader is not a regulator but a look-alike (%s: %s). swap does not replace it: fit the same kind of part, lead for lead.", d.Leader.Device, d.Leader.Title), "  ", "  ")
+		t.line("  next: %s", guideNext(d))
+		return
+	}
 	if d.Leader.Probability < 0.6 {
 		t.fill("The identification is uncertain: read the reasons with 'whichreg infer "+d.File+"' before trusting a replacement.", "  ", "  ")
 	}
-	t.line("  next: %s", swapLine(d.File))
+	t.line("  next: %s", guideNext(d))
+}
+
+// guideNext is the command to run after the session: swap for a
+// regulator, the catalog's drawing for a look-alike.
+func guideNext(d *guide.Done) string {
+	if d.Leader.Device != "" {
+		return "whichreg catalog show " + shellQuote(d.Leader.Family)
+	}
+	return "whichreg swap " + shellQuote(d.File)
+}
+
+// shellQuote quotes s for a POSIX shell when it needs it.
+func shellQuote(s string) string {
+	if shellSafe.MatchString(s) {
+		return s
+	}
+	return "'" + strings.ReplaceAll(s, "'", `'\''`) + "'"
+}
+
+var shellSafe = regexp.MustCompile(`^[A-Za-z0-9_./+:-]+$`)
+
+func plural(n int, word string) string {
+	if n == 1 {
+		return "1 " + word
+	}
+	return fmt.Sprintf("%d %ss", n, word)
 }

@@ -28,6 +28,7 @@ type guideLeaderJSON struct {
 	Package     string   `json:"package"`
 	Vout        *float64 `json:"vout"`
 	Probability float64  `json:"probability"`
+	Device      string   `json:"device,omitempty"`
 }
 
 type guideReplyJSON struct {
@@ -66,7 +67,7 @@ func askJSON(q guide.Question) guideAskJSON {
 }
 
 func leaderJSON(l guide.Leader) guideLeaderJSON {
-	return guideLeaderJSON{l.Family, l.Package, report.Known(l.VoutV, l.VoutV != 0), round(l.Probability, 6)}
+	return guideLeaderJSON{l.Family, l.Package, report.Known(l.VoutV, l.VoutV != 0), round(l.Probability, 6), l.Device}
 }
 
 func (j *jsonGuide) object(st guide.Step, last *guide.Reply) guideJSON {
@@ -118,7 +119,7 @@ func (j *jsonGuide) done(st guide.Step, last *guide.Reply) {
 	}
 	if f := st.Done.File; f != "" {
 		d.EvidenceFile = &f
-		d.Next = swapLine(f)
+		d.Next = guideNext(st.Done)
 	}
 	o.Done = d
 	j.write(o)
