@@ -58,7 +58,7 @@ type findHitDoc struct {
 	Pattern string    `json:"pattern"`
 	VoutV   []float64 `json:"vout_v"`
 	Outline string    `json:"outline"`
-	Score   int       `json:"score"`
+	Score   float64   `json:"score"`
 	Detail  string    `json:"detail"`
 }
 
@@ -80,7 +80,7 @@ func catalogFindRun(opts *catalogFindOptions) error {
 				vs = append(vs, v)
 			}
 			d.Hits = append(d.Hits, findHitDoc{ID: h.Family.ID, Kind: string(h.Family.Kind), Title: h.Family.Title, How: h.How,
-				Pattern: h.Pattern, VoutV: vs, Score: h.Score, Detail: h.Detail})
+				Pattern: h.Pattern, VoutV: vs, Outline: h.Outline, Score: h.Score, Detail: h.Detail})
 		}
 		return writeJSON(out, d)
 	}
@@ -94,7 +94,7 @@ func catalogFindRun(opts *catalogFindOptions) error {
 	}
 	for i, h := range hits {
 		report.Fill(out, fmt.Sprintf("%s (%s): %s", h.Family.ID, h.How, h.Family.Title), width, fmt.Sprintf("%2d. ", i+1), "    ")
-		report.Fill(out, h.Detail, width, "    ", "    ")
+		report.Fill(out, h.Detail, width, "    ", "      ")
 	}
 	return nil
 }

@@ -49,7 +49,15 @@ func catalogShowRun(opts *catalogShowOptions) error {
 	if err != nil {
 		return err
 	}
-	f := c.Family(opts.ID)
+	f, read, alts := catalog.Resolve(c, opts.ID)
+	if f == nil && len(alts) > 0 {
+		var ids []string
+		for _, h := range alts {
+			ids = append(ids, h.Family.ID)
+		}
+		return inputError(fmt.Errorf("%q reads equally well as %s", opts.ID, strings.Join(ids, ", ")),
+			"give more of the marking, or one of those ids; 'whichreg catalog find MARKING' shows how each reads")
+	}
 	if f == nil {
 		return inputError(fmt.Errorf("no family %q in the catalog", opts.ID), suggestIDs(c, opts.ID))
 	}
@@ -64,6 +72,10 @@ func catalogShowRun(opts *catalogShowOptions) error {
 			}
 		}
 		return writeJSON(out, d)
+	}
+	if read.Family != nil {
+		report.Fill(out, fmt.Sprintf("%s is a %s: %s", opts.ID, f.ID, read.Detail), opts.app.Width(), "", "  ")
+		fmt.Fprintln(out)
 	}
 	writeFamily(out, opts.app.Width(), c, f)
 	return nil
