@@ -15,17 +15,6 @@ type Error = tomlpos.Error
 // ErrorList is a list of [*Error], sorted by position.
 type ErrorList = tomlpos.ErrorList
 
-// Lead functions used in [Package.Pins] and [Package.Tab].
-const (
-	PinIn   = "IN"   // unregulated input
-	PinOut  = "OUT"  // regulated output
-	PinGnd  = "GND"  // common (fixed parts)
-	PinAdj  = "ADJ"  // adjust (adjustable parts; fixed LDOs of the 1117 class use it as GND)
-	PinNC   = "NC"   // not connected
-	PinEn   = "EN"   // on/off control (5-lead parts)
-	TabNone = "none" // the tab is insulated or there is none
-)
-
 // Outline is a package body as it can be recognised on the bench.
 type Outline struct {
 	// Name is the trade name, e.g. "TO-220".
@@ -99,9 +88,13 @@ type Package struct {
 	// CurrentA overrides the family's rated current for this package; 0 = the family's.
 	CurrentA float64 `toml:"current_a" json:"current_a,omitempty"`
 	// Status overrides the family's production status for this package; "" = the family's.
-	Status string `toml:"status" json:"status,omitempty"`
+	Status Status `toml:"status" json:"status,omitempty"`
 	// Note is a remark on this variant (pinout caveats, sources of doubt).
 	Note string `toml:"note" json:"note,omitempty"`
+	// OrderCodes are two or three current order codes for this package, as
+	// examples from the makers' ordering tables (one voltage where the family
+	// has several); empty for parts no longer made.
+	OrderCodes []string `toml:"order_codes" json:"order_codes,omitempty"`
 }
 
 // Family is a group of parts sold under one generic designation.
@@ -111,11 +104,11 @@ type Family struct {
 	// Title is a short description.
 	Title string `toml:"title" json:"title"`
 	// Polarity is "positive" or "negative".
-	Polarity string `toml:"polarity" json:"polarity"`
+	Polarity Polarity `toml:"polarity" json:"polarity"`
 	// Kind is "fixed", "adjustable" or "non-regulator" (a look-alike: a
 	// transistor, shunt reference or switching IC that sits where a regulator
 	// might; never a replacement).
-	Kind string `toml:"kind" json:"kind"`
+	Kind Kind `toml:"kind" json:"kind"`
 	// Device says what a non-regulator family is ([Device]); "" for regulators.
 	Device Device `toml:"device" json:"device,omitempty"`
 	// ControlDropV is a transistor's conducting control-to-output drop
@@ -124,7 +117,7 @@ type Family struct {
 	ControlDropV []float64 `toml:"control_drop_v" json:"control_drop_v,omitempty"`
 	// Pass is the pass element: "npn" (classic, ≈2 V headroom), "npn-ldo"
 	// (quasi-LDO, ≈1.3 V), "pnp" (LDO), "switching" (drop-in module). "" = npn.
-	Pass string `toml:"pass" json:"pass,omitempty"`
+	Pass Pass `toml:"pass" json:"pass,omitempty"`
 	// OutputsV are the standard output voltages of a fixed family, as magnitudes in volts.
 	OutputsV []float64 `toml:"outputs_v" json:"outputs_v"`
 	// VrefV is an adjustable part's reference (OUT minus ADJ, magnitude), volts;
@@ -165,7 +158,7 @@ type Family struct {
 	// Cout is the output-capacitor requirement.
 	Cout COut `toml:"cout" json:"cout"`
 	// Status is "active", "obsolete" or "scarce".
-	Status string `toml:"status" json:"status"`
+	Status Status `toml:"status" json:"status"`
 	// Since is the year the family appeared; 0 = unknown.
 	Since int `toml:"since" json:"since"`
 	// Commonness is 1 (rare) to 5 (everywhere); it sets the prior in identification.
@@ -246,13 +239,18 @@ func (o *Outline) Weight() float64 {
 }
 
 // Negative reports whether the family regulates a negative rail.
-func (f *Family) Negative() bool { return f.Polarity == "negative" }
+func (f *Family) Negative() bool { return f.Polarity == Negative }
 
 // Adjustable reports whether the family is adjustable.
-func (f *Family) Adjustable() bool { return f.Kind == "adjustable" }
+func (f *Family) Adjustable() bool { return f.Kind == KindAdjustable }
 
 // Switching reports whether the family is a switching drop-in module.
-func (f *Family) Switching() bool { return f.Pass == "switching" }
+func (f *Family) Switching() bool { return f.Pass == PassSwitching }
+
+// NonRegulator reports whether the family is a look-alike (a transistor, a
+// shunt reference, a switching-regulator IC): it is never offered as a
+// replacement.
+func (f *Family) NonRegulator() bool { return f.Kind == KindNonRegulator }
 
 // Current returns the rated current of package p, amperes.
 func (f *Family) Current(p *Package) float64 {
@@ -263,7 +261,7 @@ func (f *Family) Current(p *Package) float64 {
 }
 
 // StatusOf returns the production status of package p.
-func (f *Family) StatusOf(p *Package) string {
+func (f *Family) StatusOf(p *Package) Status {
 	if p != nil && p.Status != "" {
 		return p.Status
 	}

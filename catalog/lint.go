@@ -8,25 +8,6 @@ import (
 	"github.com/whichreg/whichreg/internal/tomlpos"
 )
 
-var (
-	validPolarity = []string{"positive", "negative"}
-	validKind     = []string{KindFixed, KindAdjustable, KindNonRegulator}
-	validStatus   = []string{"active", "obsolete", "scarce"}
-	validPass     = []string{"", "npn", "npn-ldo", "pnp", "switching"}
-	// regulatorPins are the lead functions a regulator family may use.
-	regulatorPins = []string{PinIn, PinOut, PinGnd, PinAdj, PinNC, PinEn, PinSense, PinFB, PinPG, PinBYP, PinInh}
-	// validPins are every lead function.
-	validPins = append(append([]string(nil), regulatorPins...), PinSW, PinB, PinC, PinE, PinG, PinD, PinS, PinRef, PinA, PinK)
-)
-
-func deviceWords() []string {
-	var out []string
-	for _, d := range Devices() {
-		out = append(out, string(d))
-	}
-	return out
-}
-
 func oneOf(v string, set []string) bool {
 	for _, s := range set {
 		if v == s {
@@ -34,16 +15,6 @@ func oneOf(v string, set []string) bool {
 		}
 	}
 	return false
-}
-
-func quoteList(set []string) string {
-	var q []string
-	for _, s := range set {
-		if s != "" {
-			q = append(q, fmt.Sprintf("%q", s))
-		}
-	}
-	return strings.Join(q, ", ")
 }
 
 // Lint checks the merged catalog c and returns every problem found in
@@ -119,17 +90,17 @@ func lintFamily(c *Catalog, f *Family, errs *ErrorList) {
 	if f.ID == "" {
 		p.add(errs, "id", "family has no id; add the generic designation, e.g. id = \"317\"")
 	}
-	if !oneOf(f.Polarity, validPolarity) {
-		p.add(errs, "polarity", "polarity %q is not one of %s", f.Polarity, quoteList(validPolarity))
+	if !isWord(f.Polarity, Polarities()) {
+		p.add(errs, "polarity", "polarity %q is not one of %s", f.Polarity, quoteWords(Polarities()))
 	}
-	if !oneOf(f.Kind, validKind) {
-		p.add(errs, "kind", "kind %q is not one of %s", f.Kind, quoteList(validKind))
+	if !isWord(f.Kind, Kinds()) {
+		p.add(errs, "kind", "kind %q is not one of %s", f.Kind, quoteWords(Kinds()))
 	}
-	if !oneOf(f.Status, validStatus) {
-		p.add(errs, "status", "status %q is not one of %s", f.Status, quoteList(validStatus))
+	if !isWord(f.Status, Statuses()) {
+		p.add(errs, "status", "status %q is not one of %s", f.Status, quoteWords(Statuses()))
 	}
-	if !oneOf(f.Pass, validPass) {
-		p.add(errs, "pass", "pass %q is not one of %s (or leave it out for npn)", f.Pass, quoteList(validPass))
+	if f.Pass != "" && !isWord(f.Pass, Passes()) {
+		p.add(errs, "pass", "pass %q is not one of %s (or leave it out for npn)", f.Pass, quoteWords(Passes()))
 	}
 	if f.Source == "" {
 		p.add(errs, "source", "family %q names no source; give the datasheet title and revision (write \"from memory\" for unconfirmed values)", f.ID)
@@ -248,15 +219,15 @@ func lintPackage(c *Catalog, f *Family, i int, errs *ErrorList) {
 	}
 	for j, fn := range pk.Pins {
 		switch {
-		case f.NonRegulator() && !oneOf(fn, validPins):
-			p.add(errs, key("pins"), "pins[%d] = %q is not one of %s", j, fn, quoteList(validPins))
-		case !f.NonRegulator() && oneOf(fn, validPins) && !oneOf(fn, regulatorPins):
-			p.add(errs, key("pins"), "pins[%d] = %q is a look-alike's lead; a regulator uses %s (a transistor or switching IC is kind = \"non-regulator\")", j, fn, quoteList(regulatorPins))
-		case !f.NonRegulator() && !oneOf(fn, regulatorPins):
-			p.add(errs, key("pins"), "pins[%d] = %q is not one of %s", j, fn, quoteList(regulatorPins))
+		case f.NonRegulator() && !isWord(Pin(fn), Pins()):
+			p.add(errs, key("pins"), "pins[%d] = %q is not one of %s", j, fn, quoteWords(Pins()))
+		case !f.NonRegulator() && isWord(Pin(fn), Pins()) && !isWord(Pin(fn), RegulatorPins()):
+			p.add(errs, key("pins"), "pins[%d] = %q is a look-alike's lead; a regulator uses %s (a transistor or switching IC is kind = \"non-regulator\")", j, fn, quoteWords(RegulatorPins()))
+		case !f.NonRegulator() && !isWord(Pin(fn), RegulatorPins()):
+			p.add(errs, key("pins"), "pins[%d] = %q is not one of %s", j, fn, quoteWords(RegulatorPins()))
 		}
 	}
-	if pk.Tab != TabNone && !oneOf(pk.Tab, validPins) {
+	if pk.Tab != TabNone && !isWord(Pin(pk.Tab), Pins()) {
 		p.add(errs, key("tab"), "tab = %q is not a lead function or \"none\"", pk.Tab)
 	}
 	terms := pk.Terminals(o)
@@ -303,40 +274,45 @@ func lintPackage(c *Catalog, f *Family, i int, errs *ErrorList) {
 	if pk.CurrentA < 0 || bad(pk.CurrentA) {
 		p.add(errs, key("current_a"), "current_a = %g is impossible", pk.CurrentA)
 	}
-	if pk.Status != "" && !oneOf(pk.Status, validStatus) {
-		p.add(errs, key("status"), "status %q is not one of %s", pk.Status, quoteList(validStatus))
+	for j, code := range pk.OrderCodes {
+		if code == "" || len(code) > 40 || strings.ContainsAny(code, " \t\n") {
+			p.add(errs, key("order_codes"), "order_codes[%d] = %q is not an order code; give the maker's code as printed in its ordering table, without spaces", j, code)
+		}
+	}
+	if pk.Status != "" && !isWord(pk.Status, Statuses()) {
+		p.add(errs, key("status"), "status %q is not one of %s", pk.Status, quoteWords(Statuses()))
 	}
 }
 
 // lintNonRegulator checks the keys of a look-alike family.
 func lintNonRegulator(f *Family, errs *ErrorList) {
 	p := f.pos
-	if !oneOf(string(f.Device), deviceWords()) {
-		p.add(errs, "device", "device %q is not one of %s; a non-regulator family says what it is", f.Device, quoteList(deviceWords()))
+	if !isWord(f.Device, Devices()) {
+		p.add(errs, "device", "device %q is not one of %s; a non-regulator family says what it is", f.Device, quoteWords(Devices()))
 		return
 	}
-	if f.Polarity != f.Device.Polarity() && oneOf(f.Polarity, validPolarity) {
-		p.add(errs, "polarity", "a %s is polarity = %q (the collector, drain or cathode side is %s)", f.Device, f.Device.Polarity(), f.Device.Polarity())
+	if f.Polarity != f.Device.Polarity() && isWord(f.Polarity, Polarities()) {
+		p.add(errs, "polarity", "%s has polarity = %q (the collector, drain or cathode side is %s)", f.Device.A(), f.Device.Polarity(), f.Device.Polarity())
 	}
 	if f.VinMaxV <= 0 {
-		p.add(errs, "vin_max_v", "a %s needs vin_max_v, its maximum collector, drain, cathode or input voltage", f.Device)
+		p.add(errs, "vin_max_v", "%s needs vin_max_v, its maximum collector, drain, cathode or input voltage", f.Device.A())
 	}
 	if f.Device.Transistor() {
 		if len(f.ControlDropV) != 2 {
-			p.add(errs, "control_drop_v", "a %s needs control_drop_v = [low, high], the conducting %s drop in volts from the datasheet", f.Device, controlName(f.Device))
+			p.add(errs, "control_drop_v", "%s needs control_drop_v = [low, high], the conducting %s drop in volts from the datasheet", f.Device.A(), controlName(f.Device))
 		} else if lo, hi := f.ControlDropV[0], f.ControlDropV[1]; lo <= 0 || hi < lo || hi > 10 || bad(lo) || bad(hi) {
 			p.add(errs, "control_drop_v", "control_drop_v = [%g, %g] is impossible; give [low, high] magnitudes in volts, low first (e.g. [0.6, 1.5])", lo, hi)
 		}
 		if f.VrefV != 0 || len(f.OutputsV) > 0 {
-			p.add(errs, "vref_v", "a %s has no reference or output voltage; leave vref_v and outputs_v out", f.Device)
+			p.add(errs, "vref_v", "%s has no reference or output voltage; leave vref_v and outputs_v out", f.Device.A())
 		}
 		return
 	}
 	if len(f.ControlDropV) > 0 {
-		p.add(errs, "control_drop_v", "control_drop_v is for transistors; a %s leaves it out", f.Device)
+		p.add(errs, "control_drop_v", "control_drop_v is for transistors; %s leaves it out", f.Device.A())
 	}
 	if f.VrefV < 0.5 || f.VrefV > 5 || bad(f.VrefV) {
-		p.add(errs, "vref_v", "vref_v = %g V is outside 0.5–5 V; give the %s's reference voltage", f.VrefV, f.Device)
+		p.add(errs, "vref_v", "vref_v = %g V is outside 0.5–5 V; give the reference voltage of %s", f.VrefV, f.Device.A())
 	}
 	if f.Tolerance <= 0 || f.Tolerance >= 0.5 || bad(f.Tolerance) {
 		p.add(errs, "tolerance", "tolerance = %g is not a fraction between 0 and 0.5 (write 0.02 for ±2 %%)", f.Tolerance)
@@ -377,11 +353,11 @@ func devicePinout(d Device, terms []string) string {
 	switch {
 	case d.Bipolar():
 		if !exactly(PinB, PinC, PinE) {
-			return fmt.Sprintf("a %s has exactly one B, one C and one E terminal", d)
+			return fmt.Sprintf("%s has exactly one B, one C and one E terminal", d.A())
 		}
 	case d.MOS():
 		if !exactly(PinG, PinD, PinS) {
-			return fmt.Sprintf("a %s has exactly one G, one D and one S terminal", d)
+			return fmt.Sprintf("%s has exactly one G, one D and one S terminal", d.A())
 		}
 	case d == DeviceShuntRef:
 		if count[PinRef] != 1 || count[PinA] == 0 || count[PinK] == 0 || count[PinRef]+count[PinA]+count[PinK]+count[PinNC] != len(terms) {

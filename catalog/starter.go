@@ -68,4 +68,5 @@ notes = []
   current_a = 0                 # 0 = the family's rating
   status = ""                   # "" = the family's status
   note = ""
+  order_codes = []              # current order codes from the makers' ordering tables, e.g. ["L7805CV"]
 `

@@ -66,13 +66,6 @@ func (c *Candidate) name() string {
 	return c.label
 }
 
-// Measurement is a suggested next measurement.
-type Measurement struct {
-	Measure  string   `json:"measure"`   // what to measure, in words
-	GainBits float64  `json:"gain_bits"` // expected information gain over the leaders, bits
-	Outcomes []string `json:"outcomes"`  // what each likely outcome would mean
-}
-
 // Result is the outcome of [Identify].
 type Result struct {
 	// Candidates are every hypothesis, most probable first.

@@ -18,9 +18,20 @@ var ErrNotInCatalog = errors.New("the evidence fits nothing in the catalog")
 // switching IC): no regulator replaces it.
 var ErrNonRegulator = errors.New("the original is not a regulator")
 
-// ErrUnknownVariant is returned (wrapped) by [ParseVariant] for a family,
-// outline or voltage the catalog does not have.
+// ErrUnknownVariant is what [ParseVariant]'s errors match (errors.Is) for
+// a family, outline or voltage the catalog does not have.
 var ErrUnknownVariant = errors.New("no such variant in the catalog")
+
+// variantError is a ParseVariant error: its own words, matching
+// ErrUnknownVariant.
+type variantError struct{ msg string }
+
+func (e *variantError) Error() string        { return e.msg }
+func (e *variantError) Is(target error) bool { return target == ErrUnknownVariant }
+
+func unknownVariant(format string, args ...any) error {
+	return &variantError{fmt.Sprintf(format, args...)}
+}
 
 // Original is the part being replaced: a hypothesis and how it was chosen.
 type Original struct {
@@ -41,7 +52,7 @@ func ParseVariant(c *catalog.Catalog, spec string) (Hypothesis, error) {
 	parts := strings.SplitN(strings.TrimSpace(spec), ":", 3)
 	f := c.Family(parts[0])
 	if f == nil {
-		return Hypothesis{}, fmt.Errorf("%w: no family %q", ErrUnknownVariant, parts[0])
+		return Hypothesis{}, unknownVariant("no family %q in the catalog", parts[0])
 	}
 	p := &f.Packages[0]
 	if len(parts) > 1 && parts[1] != "" {
@@ -51,7 +62,7 @@ func ParseVariant(c *catalog.Catalog, spec string) (Hypothesis, error) {
 			for _, q := range f.Packages {
 				outs = append(outs, q.Outline)
 			}
-			return Hypothesis{}, fmt.Errorf("%w: %s does not come in %q (it comes in %s)", ErrUnknownVariant, f.ID, parts[1], strings.Join(outs, ", "))
+			return Hypothesis{}, unknownVariant("%s does not come in %q (it comes in %s)", f.ID, parts[1], strings.Join(outs, ","))
 		}
 	}
 	h := Hypothesis{Family: f, Package: p, Outline: c.Outline(p.Outline)}
@@ -59,7 +70,7 @@ func ParseVariant(c *catalog.Catalog, spec string) (Hypothesis, error) {
 	case len(parts) > 2:
 		v, err := strconv.ParseFloat(strings.TrimSuffix(strings.TrimSpace(parts[2]), "V"), 64)
 		if err != nil || v == 0 {
-			return h, fmt.Errorf("%w: %q is not an output voltage", ErrUnknownVariant, parts[2])
+			return h, unknownVariant("%q is not an output voltage", parts[2])
 		}
 		if v < 0 {
 			v = -v

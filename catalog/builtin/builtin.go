@@ -28,26 +28,15 @@ func Files() ([]*catalog.File, catalog.ErrorList) {
 	return generated(), nil
 }
 
+// Catalog returns the built-in catalog merged, as the tool has it before
+// any user file: the entry point for a front end that does not load user
+// catalogs. Each call returns a fresh catalog the caller may change.
+func Catalog() *catalog.Catalog {
+	return catalog.Merge(generated()...)
+}
+
 // Decode loads the built-in catalog from its TOML files, with key positions
 // for messages. The tests compare it with [Files].
 func Decode() ([]*catalog.File, catalog.ErrorList) {
 	return catalog.LoadFS(files, ".", Prefix)
-}
-
-// Raw returns the text of the built-in files by name, for hashing and for
-// the starter file.
-func Raw() (map[string][]byte, error) {
-	ents, err := files.ReadDir(".")
-	if err != nil {
-		return nil, err
-	}
-	out := map[string][]byte{}
-	for _, e := range ents {
-		b, err := files.ReadFile(e.Name())
-		if err != nil {
-			return nil, err
-		}
-		out[e.Name()] = b
-	}
-	return out, nil
 }

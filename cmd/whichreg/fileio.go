@@ -60,3 +60,18 @@ func writeFileAtomic(path string, data []byte, force bool) error {
 	os.Remove(name)
 	return nil
 }
+
+// writeOut writes data to file atomically, or to stdout when file is "".
+func writeOut(app *App, file string, data []byte, force bool) error {
+	if file == "" || file == "-" {
+		if _, err := app.IO.Out.Write(data); err != nil {
+			return ioError(err)
+		}
+		return nil
+	}
+	if err := writeFileAtomic(file, data, force); err != nil {
+		return err
+	}
+	fmt.Fprintf(app.IO.ErrOut, "wrote %s\n", file)
+	return nil
+}

@@ -1,42 +1,57 @@
 package main
 
 import (
-	"fmt"
-	"io"
 	"math"
-	"strings"
 
 	"github.com/spf13/cobra"
 
 	"github.com/whichreg/whichreg/infer"
+	"github.com/whichreg/whichreg/report"
 )
 
 type inferOptions struct {
 	app    *App
 	Format string
 	Top    int
+	All    bool
 	Why    int
+	Quiet  bool
 	File   string
 }
+
+// defaultTop is how many candidates infer lists unless told.
+const defaultTop = 8
 
 func newInferCmd(app *App, runF func(*inferOptions) error) *cobra.Command {
 	opts := &inferOptions{app: app}
 	cmd := &cobra.Command{
-		Use:   "infer EVIDENCE.toml",
+		Use:   "infer EVIDENCE.toml|-",
 		Short: "Rank what an unmarked regulator could be, with probabilities and reasons",
-		Long: `infer ranks every (family, package, output voltage) in the catalog against what
-you measured. Each candidate's score is the sum of its reasons: a prior
+		Long: `infer ranks every (family, outline, output voltage) in the catalog against
+what you measured. Each candidate's score is the sum of its reasons: a prior
 (commonness, era) and one term per piece of evidence, as a natural-log
-likelihood ratio against a part about which nothing is known. "Not in the
-catalog" is always listed: if it leads, the evidence fits nothing known.
-Then it lists the measurements that would best separate the leaders.`,
+likelihood ratio against a part about which nothing is known. Probabilities
+are the scores normalised over every candidate and "not in the catalog",
+which is always listed: if it leads, the evidence fits nothing known.
+
+The leader's reasons are shown in full, the runners-up's as the differences
+from the leader. Then come the measurements that would best separate the
+leaders, in bits of expected information (one bit halves the doubt).
+
+EVIDENCE.toml of - reads the evidence from standard input.`,
 		Example: `  whichreg infer testdata/demo/bench-supply-negative.toml
-  whichreg infer board.toml --top 10 --format json`,
+  whichreg infer board.toml --top 10 --format json
+  whichreg infer - < board.toml`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			opts.File = args[0]
-			if opts.Top < 0 {
-				return flagErrorf("--top must be 0 (all) or more")
+			if opts.Top < 0 || opts.Why < 0 {
+				return flagErrorf("--top and --why take 0 or more")
+			}
+			if opts.All {
+				opts.Top = 0
+			} else if !cmd.Flags().Changed("top") {
+				opts.Top = defaultTop
 			}
 			if runF != nil {
 				return runF(opts)
@@ -45,8 +60,10 @@ Then it lists the measurements that would best separate the leaders.`,
 		},
 	}
 	addFormatFlag(cmd, &opts.Format, "text", "json", "markdown")
-	cmd.Flags().IntVar(&opts.Top, "top", 0, "candidates to list (0 = 8 in text and markdown, all in JSON)")
-	cmd.Flags().IntVar(&opts.Why, "why", 3, "show the reasons of this many leaders (text and markdown)")
+	cmd.Flags().IntVar(&opts.Top, "top", defaultTop, "list the `N` leading candidates; 0 lists every one (as --all does)")
+	cmd.Flags().BoolVar(&opts.All, "all", false, "list every candidate (JSON: with every reason)")
+	cmd.Flags().IntVar(&opts.Why, "why", 3, "explain this many leaders: the first in full, the others as differences (text and markdown)")
+	cmd.Flags().BoolVarP(&opts.Quiet, "quiet", "q", false, "leave out the legend of score, probability and bits")
 	return cmd
 }
 
@@ -59,9 +76,14 @@ func inferRun(o *inferOptions) error {
 	if err != nil {
 		return err
 	}
-	explain := 0 // JSON: every candidate's reasons
-	if o.Format != "json" {
-		explain = max(o.Why, topOr(o.Top, 8))
+	listed := o.Top
+	if listed == 0 {
+		listed = math.MaxInt
+	}
+	// Explain: how many candidates get their reasons' text (0: every one).
+	explain := o.Top
+	if o.Top > 0 && o.Format != "json" {
+		explain = max(o.Top, o.Why)
 	}
 	res, err := infer.Identify(c, ev, infer.Options{Explain: explain})
 	if err != nil {
@@ -70,41 +92,122 @@ func inferRun(o *inferOptions) error {
 	out := o.app.IO.Out
 	switch o.Format {
 	case "json":
-		return writeJSON(out, inferJSONOf(res, o.Top))
+		return writeJSON(out, inferDocOf(res, o.Top))
 	case "markdown":
-		writeInferMarkdown(out, ev, res, topOr(o.Top, 8), o.Why)
+		writeInferMarkdown(out, ev, res, listed, o.Why)
 	default:
-		writeInferText(out, ev, res, topOr(o.Top, 8), o.Why)
+		writeInferText(out, o.app.Width(), ev, res, listed, o.Why, o.Quiet)
 	}
 	return nil
 }
 
-func topOr(top, def int) int {
-	if top == 0 {
-		return def
+// inferDoc is the JSON document of `whichreg infer` (schema
+// whichreg/infer/v1, docs/schema/infer.json).
+type inferDoc struct {
+	Schema string `json:"schema"`
+	// PriorOnly is true when no evidence bore on the ranking.
+	PriorOnly  bool           `json:"prior_only"`
+	Candidates []inferCandDoc `json:"candidates"`
+	// Others is the probability of the candidates not listed, OthersCount
+	// how many they are.
+	Others      float64 `json:"others"`
+	OthersCount int     `json:"others_count"`
+	// NotInCatalog is the probability that the part is none of them.
+	NotInCatalog      float64          `json:"not_in_catalog"`
+	NotInCatalogScore float64          `json:"not_in_catalog_score"`
+	Conflicts         []string         `json:"conflicts"`
+	Next              []measurementDoc `json:"next"`
+	Assumptions       []string         `json:"assumptions"`
+}
+
+// inferCandDoc is one candidate: family, outline and output voltage.
+type inferCandDoc struct {
+	Family  string `json:"family"`
+	Outline string `json:"outline"`
+	// VoutV is signed (negative regulators below zero); null when unknown.
+	VoutV       *float64 `json:"vout_v"`
+	Probability float64  `json:"probability"`
+	// Score is null for a candidate the evidence rules out entirely.
+	Score   *float64    `json:"score"`
+	Reasons []reasonDoc `json:"reasons"`
+}
+
+// reasonDoc is one term of a score.
+type reasonDoc struct {
+	Evidence string `json:"evidence"`
+	// Weight is a natural-log likelihood ratio; null for "impossible".
+	Weight *float64 `json:"weight"`
+	Text   string   `json:"text"`
+}
+
+// measurementDoc is one suggested measurement (the guide's ask, plus the
+// expected gain and what each outcome would mean).
+type measurementDoc struct {
+	Key      string   `json:"key"`
+	Kind     string   `json:"kind"`
+	Choices  []string `json:"choices"`
+	Unit     *string  `json:"unit"`
+	Measure  string   `json:"measure"`
+	Prompt   string   `json:"prompt"`
+	Powered  bool     `json:"powered"`
+	Safety   *string  `json:"safety"`
+	GainBits float64  `json:"gain_bits"`
+	Outcomes []string `json:"outcomes"`
+}
+
+// finite returns x rounded to digits decimals, or nil when x is not finite.
+func finite(x float64, digits int) *float64 {
+	if math.IsNaN(x) || math.IsInf(x, 0) {
+		return nil
 	}
-	return top
+	r := round(x, digits)
+	return &r
 }
 
-// inferJSON is the JSON contract of `whichreg infer` (issue #3; keys may be
-// added, never renamed).
-type inferJSON struct {
-	Candidates   []candidateJSON     `json:"candidates"`
-	NotInCatalog float64             `json:"not_in_catalog"`
-	Others       float64             `json:"others"`
-	Conflicts    []string            `json:"conflicts"`
-	Next         []infer.Measurement `json:"next"`
-	PriorOnly    bool                `json:"prior_only"`
-	Assumptions  []string            `json:"assumptions"`
+// orNull returns nil for the empty string.
+func orNull(s string) *string {
+	if s == "" {
+		return nil
+	}
+	return &s
 }
 
-type candidateJSON struct {
-	Family      string         `json:"family"`
-	Package     string         `json:"package"`
-	Vout        float64        `json:"vout"`
-	Probability float64        `json:"probability"`
-	Score       float64        `json:"score"`
-	Reasons     []infer.Reason `json:"reasons"`
+// nonNil returns s, or an empty list for nil (JSON [] rather than null).
+func nonNil[T any](s []T) []T {
+	if s == nil {
+		return []T{}
+	}
+	return s
+}
+
+func inferDocOf(res *infer.Result, top int) inferDoc {
+	d := inferDoc{Schema: report.Schema("infer"), PriorOnly: res.PriorOnly,
+		NotInCatalog: round(res.NotInCatalog, 6), NotInCatalogScore: round(res.NotInCatalogScore, 4),
+		Conflicts: nonNil(res.Conflicts), Assumptions: nonNil(res.Assumptions), Candidates: []inferCandDoc{}, Next: []measurementDoc{}}
+	for i, c := range res.Candidates {
+		if top > 0 && i >= top {
+			d.Others += c.Probability
+			d.OthersCount++
+			continue
+		}
+		cd := inferCandDoc{Family: c.Family.ID, Outline: c.Package.Outline, Probability: round(c.Probability, 6),
+			Score: finite(c.Score, 4), Reasons: []reasonDoc{}}
+		if c.VoutV > 0 {
+			v := signedVout(c.Hypothesis)
+			cd.VoutV = &v
+		}
+		for _, r := range c.Reasons {
+			cd.Reasons = append(cd.Reasons, reasonDoc{r.Evidence, finite(r.Weight, 4), r.Text})
+		}
+		d.Candidates = append(d.Candidates, cd)
+	}
+	d.Others = round(d.Others, 6)
+	for _, m := range res.Next {
+		d.Next = append(d.Next, measurementDoc{Key: m.Key, Kind: string(m.Kind), Choices: nonNil(m.Choices), Unit: orNull(m.Unit),
+			Measure: m.Measure, Prompt: m.Prompt, Powered: m.Powered, Safety: orNull(m.Safety), GainBits: round(m.GainBits, 4),
+			Outcomes: nonNil(m.Outcomes)})
+	}
+	return d
 }
 
 func signedVout(h infer.Hypothesis) float64 {
@@ -118,149 +221,3 @@ func round(x float64, digits int) float64 {
 	p := math.Pow(10, float64(digits))
 	return math.Round(x*p) / p
 }
-
-func inferJSONOf(res *infer.Result, top int) inferJSON {
-	j := inferJSON{NotInCatalog: round(res.NotInCatalog, 6), Conflicts: res.Conflicts, Next: res.Next,
-		PriorOnly: res.PriorOnly, Assumptions: res.Assumptions, Candidates: []candidateJSON{}}
-	for i, c := range res.Candidates {
-		if top > 0 && i >= top {
-			j.Others += c.Probability
-			continue
-		}
-		rs := make([]infer.Reason, len(c.Reasons))
-		for k, r := range c.Reasons {
-			rs[k] = infer.Reason{Evidence: r.Evidence, Weight: round(r.Weight, 4), Text: r.Text}
-		}
-		j.Candidates = append(j.Candidates, candidateJSON{c.Family.ID, c.Package.Outline, signedVout(c.Hypothesis),
-			round(c.Probability, 6), round(c.Score, 4), rs})
-	}
-	j.Others = round(j.Others, 6)
-	if j.Conflicts == nil {
-		j.Conflicts = []string{}
-	}
-	if j.Next == nil {
-		j.Next = []infer.Measurement{}
-	}
-	if j.Assumptions == nil {
-		j.Assumptions = []string{}
-	}
-	return j
-}
-
-func pct(p float64) string {
-	switch {
-	case p >= 0.995:
-		return fmt.Sprintf("%.1f %%", 100*p)
-	case p >= 0.001:
-		return fmt.Sprintf("%.1f %%", 100*p)
-	}
-	return "<0.1 %"
-}
-
-func title(ev *infer.Evidence) string {
-	var parts []string
-	if ev.Ref != "" {
-		parts = append(parts, ev.Ref)
-	}
-	if ev.Equipment != "" {
-		parts = append(parts, ev.Equipment)
-	}
-	if len(parts) == 0 {
-		return ev.File
-	}
-	return strings.Join(parts, " — ")
-}
-
-func writeInferText(w io.Writer, ev *infer.Evidence, res *infer.Result, top, why int) {
-	fmt.Fprintf(w, "%s (%s)\n", title(ev), ev.File)
-	if res.PriorOnly {
-		fmt.Fprintln(w, "No evidence bears on the ranking: candidates are ranked by prior (commonness and era) alone.")
-	}
-	fmt.Fprintf(w, "\n%-4s %-9s %-28s %s\n", "rank", "prob", "candidate", "score")
-	for i, c := range res.Candidates {
-		if i >= top {
-			break
-		}
-		fmt.Fprintf(w, "%-4d %-9s %-28s %+.2f\n", i+1, pct(c.Probability), c.Label(), c.Score)
-	}
-	fmt.Fprintf(w, "%-4s %-9s %-28s %+.2f\n", "-", pct(res.NotInCatalog), "not in the catalog", res.NotInCatalogScore)
-	for i, c := range res.Candidates {
-		if i >= why {
-			break
-		}
-		fmt.Fprintf(w, "\nWhy %s (%s): score %+.2f =\n", c.Label(), pct(c.Probability), c.Score)
-		for _, r := range c.Reasons {
-			fmt.Fprintf(w, "  %+6.2f  %-22s %s\n", r.Weight, r.Evidence, r.Text)
-		}
-	}
-	writeList(w, "Conflicts in the evidence:", res.Conflicts)
-	if len(res.Next) > 0 {
-		fmt.Fprintln(w, "\nMeasure next (expected information gain):")
-		for i, m := range res.Next {
-			fmt.Fprintf(w, "  %d. %s — %.2f bits\n", i+1, m.Measure, m.GainBits)
-			for _, o := range m.Outcomes {
-				fmt.Fprintf(w, "       %s\n", o)
-			}
-		}
-	}
-	writeList(w, "Assumed:", res.Assumptions)
-	fmt.Fprintln(w, "\nConfirm the pinout against the maker's datasheet before fitting anything; 'whichreg swap' checks replacements.")
-}
-
-func writeInferMarkdown(w io.Writer, ev *infer.Evidence, res *infer.Result, top, why int) {
-	fmt.Fprintf(w, "# Identification: %s\n\n", title(ev))
-	if res.PriorOnly {
-		fmt.Fprintln(w, "_No evidence bears on the ranking: candidates are ranked by prior alone._")
-		fmt.Fprintln(w)
-	}
-	writeCandidateTable(w, res, top)
-	for i, c := range res.Candidates {
-		if i >= why {
-			break
-		}
-		fmt.Fprintf(w, "\n## Why %s (%s)\n\n| weight | evidence | reason |\n| ---: | --- | --- |\n", c.Label(), pct(c.Probability))
-		for _, r := range c.Reasons {
-			fmt.Fprintf(w, "| %+.2f | %s | %s |\n", r.Weight, r.Evidence, mdEscape(r.Text))
-		}
-		fmt.Fprintf(w, "| **%+.2f** | | score |\n", c.Score)
-	}
-	if len(res.Conflicts) > 0 {
-		fmt.Fprintln(w, "\n## Conflicts")
-		for _, c := range res.Conflicts {
-			fmt.Fprintf(w, "- %s\n", mdEscape(c))
-		}
-	}
-	if len(res.Next) > 0 {
-		fmt.Fprintln(w, "\n## Measure next")
-		for i, m := range res.Next {
-			fmt.Fprintf(w, "%d. %s (%.2f bits)\n", i+1, mdEscape(m.Measure), m.GainBits)
-			for _, o := range m.Outcomes {
-				fmt.Fprintf(w, "   - %s\n", mdEscape(o))
-			}
-		}
-	}
-}
-
-func writeCandidateTable(w io.Writer, res *infer.Result, top int) {
-	fmt.Fprintln(w, "| rank | probability | candidate | score |\n| ---: | ---: | --- | ---: |")
-	for i, c := range res.Candidates {
-		if i >= top {
-			break
-		}
-		fmt.Fprintf(w, "| %d | %s | %s | %+.2f |\n", i+1, pct(c.Probability), c.Label(), c.Score)
-	}
-	fmt.Fprintf(w, "| – | %s | not in the catalog | %+.2f |\n", pct(res.NotInCatalog), res.NotInCatalogScore)
-}
-
-// writeList writes a titled list of lines after a blank line, or nothing when empty.
-func writeList(w io.Writer, title string, items []string) {
-	if len(items) == 0 {
-		return
-	}
-	fmt.Fprintf(w, "\n%s\n", title)
-	for _, it := range items {
-		fmt.Fprintf(w, "  - %s\n", it)
-	}
-}
-
-func mdEscape(s string) string { return strings.ReplaceAll(s, "|", "\\|") }

@@ -5,53 +5,38 @@ import (
 	"fmt"
 	"io"
 	"os"
-	"path/filepath"
 	"strings"
 	"time"
 
 	"github.com/spf13/cobra"
 
-	"github.com/whichreg/whichreg/catalog"
-	"github.com/whichreg/whichreg/catalog/builtin"
 	"github.com/whichreg/whichreg/internal/tomlpos"
 )
 
 // Exit codes (DESIGN.md, contract).
 const (
-	exitOK    = 0
-	exitInput = 1 // invalid input: the message names file:line and key
-	exitUsage = 2 // usage error
-	exitIO    = 3 // an I/O failure
+	exitOK       = 0
+	exitInput    = 1 // invalid input (the message names file:line and key), a refused record
+	exitUsage    = 2 // usage error
+	exitIO       = 3 // an I/O failure, write errors included
+	exitInternal = 4 // an internal error: a bug in whichreg
 )
 
 // version is the tool version written into records.
 const version = "0.1.0"
 
-// IOStreams are the streams a command writes to.
-type IOStreams struct {
-	In     io.Reader
-	Out    io.Writer
-	ErrOut io.Writer
+// flagError is a usage problem: a bad flag, a wrong number of arguments,
+// an unknown command. Usage hints are printed for it and it exits 2.
+type flagError struct {
+	err   error
+	hints []string
 }
-
-// App is what every command shares: streams, catalog sources and the clock.
-type App struct {
-	IO           *IOStreams
-	CatalogFiles []string
-	// ConfigDir returns the user configuration directory (os.UserConfigDir).
-	ConfigDir func() (string, error)
-	// Now returns the current time (records are dated with it).
-	Now func() time.Time
-}
-
-// flagError is a usage problem; usage is printed for it.
-type flagError struct{ err error }
 
 func (e *flagError) Error() string { return e.err.Error() }
 func (e *flagError) Unwrap() error { return e.err }
 
 func flagErrorf(format string, args ...any) error {
-	return &flagError{fmt.Errorf(format, args...)}
+	return &flagError{err: fmt.Errorf(format, args...)}
 }
 
 // exitError carries an exit code and optional hint lines.
@@ -78,6 +63,7 @@ func Main() int {
 	app := &App{
 		IO:        &IOStreams{In: os.Stdin, Out: os.Stdout, ErrOut: os.Stderr},
 		ConfigDir: os.UserConfigDir,
+		Getenv:    os.Getenv,
 		Now:       time.Now,
 	}
 	if testOnlyNow != nil {
@@ -86,18 +72,29 @@ func Main() int {
 	return run(app, os.Args[1:])
 }
 
+// run executes one command line and returns its exit code. It is the one
+// place where errors become exit codes.
 func run(app *App, args []string) (code int) {
+	out := newOutWriter(app.IO.Out)
+	app.IO.Out = out
+	defer func() { app.IO.Out = out.dst }()
 	// A panic is a bug in whichreg, never the user's fault: say so in one
-	// line rather than with a stack trace, and exit as for invalid input.
+	// line rather than with a stack trace, with its own exit code.
 	defer func() {
 		if r := recover(); r != nil {
-			fmt.Fprintf(app.IO.ErrOut, "whichreg: internal error: %v\nhint: please report it with the file and command that caused it\n", r)
-			code = exitInput
+			_ = out.Flush()
+			fmt.Fprintf(app.IO.ErrOut, "whichreg: internal error: %v\nhint: this is a bug in whichreg; please report it with the file and command that caused it\n", r)
+			code = exitInternal
 		}
 	}()
 	root := newRootCmd(app)
 	root.SetArgs(args)
 	err := root.Execute()
+	// A failed write to standard output is an I/O failure whichever command
+	// was writing and however it passed the error on.
+	if ferr := out.Flush(); ferr != nil && (err == nil || errors.Is(err, ferr)) {
+		err = ioError(fmt.Errorf("writing the output: %v", ferr), "check the free space and the destination of the output")
+	}
 	if err == nil {
 		return exitOK
 	}
@@ -109,8 +106,11 @@ func run(app *App, args []string) (code int) {
 			return ee.code
 		}
 		return exitInput
-	case errors.As(err, &fe) || isCobraUsage(err):
+	case errors.As(err, &fe):
 		fmt.Fprintf(app.IO.ErrOut, "whichreg: %v\n", err)
+		for _, h := range fe.hints {
+			fmt.Fprintf(app.IO.ErrOut, "hint: %s\n", h)
+		}
 		fmt.Fprintf(app.IO.ErrOut, "Run 'whichreg --help' (or the command with --help) for usage.\n")
 		return exitUsage
 	case errors.As(err, &ee):
@@ -125,17 +125,6 @@ func run(app *App, args []string) (code int) {
 	}
 }
 
-// isCobraUsage recognises cobra's own argument and command errors.
-func isCobraUsage(err error) bool {
-	msg := err.Error()
-	for _, p := range []string{"unknown command", "unknown flag", "unknown shorthand flag", "accepts ", "requires at least", "requires at most", "invalid argument", "flag needs an argument", "required flag"} {
-		if strings.Contains(msg, p) {
-			return true
-		}
-	}
-	return false
-}
-
 // printError prints an error; a list of positioned errors one per line.
 func printError(w io.Writer, err error) {
 	var list tomlpos.ErrorList
@@ -148,7 +137,15 @@ func printError(w io.Writer, err error) {
 	fmt.Fprintf(w, "whichreg: %v\n", err)
 }
 
+// Command groups of the root help.
+const (
+	groupWork  = "work"
+	groupTools = "tools"
+)
+
 func newRootCmd(app *App) *cobra.Command {
+	// List commands in the order of the work, not alphabetically.
+	cobra.EnableCommandSorting = false
 	root := &cobra.Command{
 		Use:   "whichreg",
 		Short: "Identify an unmarked linear regulator, choose a replacement, record the repair",
@@ -158,71 +155,106 @@ checks current-production replacements against the real circuit (swap), and
 writes the decision down for the next person (record).
 
 Start with 'whichreg evidence init board.toml', fill in what you measured,
-then run 'whichreg infer board.toml'.
+then run 'whichreg infer board.toml'. A file argument of - reads standard
+input; an output file of - writes standard output.
+
+Text is fitted to the terminal (COLUMNS, else the terminal's width) or to 80
+columns when piped; --width N sets it.
 
 Exit codes:
   0  success (contradictory evidence still answers, with its conflicts listed)
-  1  invalid input: the message names file:line and key
+  1  invalid input: the message names file:line and key; a refused record
   2  usage error
-  3  I/O failure
+  3  I/O failure (reading, or writing the output)
+  4  internal error (a bug in whichreg: please report it)
 
 Safety: the equipment may carry mains voltage and its filter capacitors may hold
 a charge long after it is switched off. See 'whichreg record' for the cautions
 written into every record.`,
+		Example: `  whichreg evidence init u4.toml
+  whichreg infer u4.toml
+  whichreg swap u4.toml
+  whichreg record u4.toml --choose 78xx:TO-220 -o u4-record.md
+  whichreg catalog find '?M3?7'`,
 		SilenceErrors: true,
 		SilenceUsage:  true,
 		Version:       version,
+		Args:          cobra.ArbitraryArgs,
+		RunE:          groupRunE,
 	}
 	root.SetOut(app.IO.Out)
 	root.SetErr(app.IO.ErrOut)
-	root.SetFlagErrorFunc(func(c *cobra.Command, err error) error { return &flagError{err} })
-	root.PersistentFlags().StringArrayVar(&app.CatalogFiles, "catalog", nil, "add a user catalog `FILE` on top of the built-in one (repeatable)")
-	root.AddCommand(
-		newCatalogCmd(app),
-		newEvidenceCmd(app),
-		newInferCmd(app, nil),
-		newSwapCmd(app, nil),
-		newRecordCmd(app, nil),
-		newCalcCmd(app),
-	)
+	root.SetFlagErrorFunc(func(c *cobra.Command, err error) error { return &flagError{err: err} })
+	pf := root.PersistentFlags()
+	pf.StringArrayVar(&app.CatalogFiles, "catalog", nil, "add a user catalog `FILE` on top of the built-in one (repeatable; - reads stdin)")
+	pf.BoolVar(&app.NoUserCatalog, "no-user-catalog", false, "leave out the catalog files of the configuration directory ('whichreg catalog paths')")
+	pf.IntVar(&app.widthFlag, "width", 0, "fit text output to `N` columns (default: the terminal's width, 80 when piped)")
+	root.PersistentPreRunE = func(cmd *cobra.Command, args []string) error {
+		if app.widthFlag != 0 && app.widthFlag < minWidth {
+			return flagErrorf("--width %d is too narrow: give %d or more", app.widthFlag, minWidth)
+		}
+		return nil
+	}
+	root.AddGroup(&cobra.Group{ID: groupWork, Title: "At the bench (in this order):"},
+		&cobra.Group{ID: groupTools, Title: "Catalog and calculations:"})
+	for _, c := range []*cobra.Command{newEvidenceCmd(app), newInferCmd(app, nil), newSwapCmd(app, nil), newRecordCmd(app, nil)} {
+		c.GroupID = groupWork
+		root.AddCommand(c)
+	}
+	for _, c := range []*cobra.Command{newCatalogCmd(app), newCalcCmd(app)} {
+		c.GroupID = groupTools
+		root.AddCommand(c)
+	}
+	root.SetHelpCommandGroupID(groupTools)
+	root.SetCompletionCommandGroupID(groupTools)
+	typedUsageErrors(root)
 	return root
 }
 
-// maxCatalogBytes bounds a user catalog file (10 000 families take about 4 MB).
-const maxCatalogBytes = 32 << 20
-
-// catalogSources lists the user catalog files in the order they are merged:
-// the config directory's files (sorted), then --catalog flags.
-func (app *App) catalogSources() []string {
-	var out []string
-	if app.ConfigDir != nil {
-		if dir, err := app.ConfigDir(); err == nil && dir != "" {
-			m, _ := filepath.Glob(filepath.Join(dir, "whichreg", "catalog", "*.toml"))
-			out = append(out, m...)
+// groupRunE runs a command that only groups others: with no arguments it
+// prints its help; with any it is an unknown subcommand, a usage error
+// that suggests the nearest names.
+func groupRunE(cmd *cobra.Command, args []string) error {
+	if len(args) == 0 {
+		return cmd.Help()
+	}
+	fe := &flagError{err: fmt.Errorf("unknown command %q for %q", args[0], cmd.CommandPath())}
+	if cmd.SuggestionsMinimumDistance <= 0 {
+		cmd.SuggestionsMinimumDistance = 2
+	}
+	if s := cmd.SuggestionsFor(args[0]); len(s) > 0 {
+		fe.hints = append(fe.hints, "did you mean "+strings.Join(s, " or ")+"?")
+	}
+	var names []string
+	for _, c := range cmd.Commands() {
+		if c.IsAvailableCommand() {
+			names = append(names, c.Name())
 		}
 	}
-	return append(out, app.CatalogFiles...)
+	fe.hints = append(fe.hints, fmt.Sprintf("'%s' has: %s", cmd.CommandPath(), strings.Join(names, ", ")))
+	return fe
 }
 
-// loadCatalog loads the built-in catalog and every user file, and lints the
-// result. It returns an input error listing every problem.
-func (app *App) loadCatalog() (*catalog.Catalog, error) {
-	files, errs := builtin.Files()
-	for _, name := range app.catalogSources() {
-		data, err := readLimited(name, "catalog", maxCatalogBytes)
-		if err != nil {
-			return nil, err
+// typedUsageErrors makes every argument-count error of the tree a
+// *flagError, so that run tells usage errors by their type, not by their text.
+func typedUsageErrors(c *cobra.Command) {
+	if c.HasSubCommands() && c.RunE == nil && c.Run == nil {
+		c.Args = cobra.ArbitraryArgs
+		c.RunE = groupRunE
+	}
+	if check := c.Args; check != nil {
+		c.Args = func(cmd *cobra.Command, args []string) error {
+			if err := check(cmd, args); err != nil {
+				var fe *flagError
+				if errors.As(err, &fe) {
+					return err
+				}
+				return &flagError{err: err}
+			}
+			return nil
 		}
-		f, e := catalog.Load(name, data)
-		errs = append(errs, e...)
-		files = append(files, f)
 	}
-	if len(errs) > 0 {
-		return nil, inputError(errs, "run 'whichreg catalog check FILE' for the full list")
+	for _, sub := range c.Commands() {
+		typedUsageErrors(sub)
 	}
-	c := catalog.Merge(files...)
-	if lint := catalog.Lint(c); len(lint) > 0 {
-		return nil, inputError(lint, "fix the catalog file, or leave it out with fewer --catalog flags")
-	}
-	return c, nil
 }

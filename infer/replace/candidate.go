@@ -11,7 +11,9 @@ import (
 // cand is one candidate with the figures several checks read, worked out
 // once by prepareCandidate before any check runs.
 type cand struct {
-	infer.Hypothesis // VoutV: what the candidate will make here (magnitude)
+	infer.Hypothesis // VoutV: the part's nominal output (a fixed part's standard voltage, an adjustable's setting)
+
+	outV float64 // what it will make here (magnitude): on a lifted ground, nominal plus the lift
 
 	sameHoles bool // its leads go into the old holes in the old order
 	// tabV is the candidate's tab or can potential here (signed volts); nil
@@ -42,9 +44,10 @@ func prepareCandidate(in *Input, h infer.Hypothesis) cand {
 	oo, o := in.Orig.Outline, h.Outline
 	c.sameHoles = sameHoles(oo, o)
 	// The output it will make.
+	c.VoutV = nominalOf(in, h)
+	c.outV = c.VoutV
 	switch {
 	case f.Adjustable():
-		c.VoutV = cd.VoutV
 		if !(in.Orig.Family.Adjustable() && in.Network.Resistors()) {
 			d, err := chooseFor(f, cd.VoutV)
 			if err == nil {
@@ -52,19 +55,8 @@ func prepareCandidate(in *Input, h infer.Hypothesis) cand {
 			}
 			c.dividerErr = err
 		}
-	default:
-		nom := in.Orig.VoutV
-		if in.Orig.Family.Adjustable() || nom == 0 {
-			nom = cd.VoutV
-		}
-		if in.Lifted {
-			nom = in.Orig.VoutV
-		}
-		v, _ := nearestOutput(f, nom)
-		c.VoutV = v
-		if in.Lifted {
-			c.VoutV = v + in.Network.Lift(v, f.GroundCurrentA(cd.LoadMaxA))
-		}
+	case in.Lifted:
+		c.outV = c.VoutV + in.Network.Lift(c.VoutV, iqTypA(f)) // as the datasheet's typical part makes it
 	}
 	// Tab potential and insulation.
 	c.tabV, c.kit = tabPotential(in, h)
@@ -150,18 +142,26 @@ func tabPotential(in *Input, h infer.Hypothesis) (*float64, bool) {
 // the drop of a ground return).
 const liveV = 0.05
 
-// nominalOf returns the nominal output of a fixed candidate (its nearest
-// standard voltage to the original's), or the target of an adjustable one.
+// nominalOf returns the nominal output of a fixed candidate (its standard
+// voltage nearest the original's nominal, or the set output when the
+// original is adjustable or its voltage unknown), or the target of an
+// adjustable one.
 func nominalOf(in *Input, h infer.Hypothesis) float64 {
 	if h.Family.Adjustable() {
 		return in.Cond.VoutV
 	}
-	nom := in.Orig.VoutV
-	if in.Orig.Family.Adjustable() || nom == 0 {
-		nom = in.Cond.VoutV
-	}
-	v, _ := nearestOutput(h.Family, nom)
+	v, _ := nearestOutput(h.Family, wantedNominal(in))
 	return v
+}
+
+// wantedNominal is the fixed output a replacement should have: the
+// original's nominal, or the set output when the original is adjustable
+// or its voltage unknown.
+func wantedNominal(in *Input) float64 {
+	if in.Orig.Family.Adjustable() || in.Orig.VoutV == 0 {
+		return in.Cond.VoutV
+	}
+	return in.Orig.VoutV
 }
 
 // chooseFor picks the E24 divider an adjustable family needs for vout.

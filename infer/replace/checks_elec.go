@@ -49,13 +49,9 @@ func checkVout(in *Input, c *cand) (Check, bool) {
 			ch.Action += "; the nearest pair misses by more than the part's tolerance: make R2 part trimmer and set the output"
 		}
 	default:
-		nom := nominalOf(in, c.Hypothesis)
-		want := in.Orig.VoutV
-		if of.Adjustable() || want == 0 {
-			want = target
-		}
+		nom, want := c.VoutV, wantedNominal(in)
 		_, ok := nearestOutput(f, want)
-		ch.Value = num(f.Signed(c.VoutV))
+		ch.Value = num(f.Signed(c.outV))
 		switch {
 		case !ok:
 			ch.ValueText, ch.Margin, ch.Status = fmt.Sprintf("%s%s V nearest", s, trim(nom)), -math.Abs(nom-want)/want, Fail

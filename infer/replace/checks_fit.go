@@ -73,7 +73,7 @@ func checkOutline(in *Input, c *cand) (Check, bool) {
 
 func checkPolarity(in *Input, c *cand) (Check, bool) {
 	f, of := c.Family, in.Orig.Family
-	ch := Check{Name: CheckPolarity, ValueText: f.Polarity, LimitText: of.Polarity}
+	ch := Check{Name: CheckPolarity, ValueText: string(f.Polarity), LimitText: string(of.Polarity)}
 	if f.Polarity != of.Polarity {
 		ch.Margin, ch.Status, ch.Text = -1, Fail, fmt.Sprintf("a %s regulator cannot replace a %s one", f.Polarity, of.Polarity)
 	} else {

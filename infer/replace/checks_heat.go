@@ -57,9 +57,16 @@ func checkThermal(in *Input, c *cand) (Check, bool) {
 		where = fmt.Sprintf("at full load with %.2f V in, the worst point of the bypass resistor's share", c.atV)
 	}
 	ch.Text = fmt.Sprintf("%.2f W %s through %s, from %g °C ambient", c.powerW, where, path, cd.AmbientC)
-	if st == Fail && cd.HeatsinkCW > 0 && c.powerW > 0 && !(c.Outline != nil && c.Outline.SMD) {
+	smd := c.Outline != nil && c.Outline.SMD
+	if st == Fail && c.powerW > 0 && !smd && !f.Switching() && c.Outline != nil && (c.Outline.Tab || c.Outline.MetalCan) {
 		if sa, err := circuit.RequiredThetaSA(c.powerW, cd.AmbientC, f.TjMaxC-15, c.Package.ThetaJC, c.thetaCS); err == nil && sa > 0 {
 			ch.Text += fmt.Sprintf("; a heat sink of %.2g °C/W or better would do", sa)
+		}
+		if in.Ev.Mount == nil {
+			// Nothing says how the running original is cooled: it cannot
+			// have run in free air, so this is a question, not a verdict.
+			ch.Status = Warn
+			ch.Text += "; the evidence does not describe the mounting, and the original cannot have run like this in free air: give [mount] heatsink_c_per_w"
 		}
 	}
 	return ch, true

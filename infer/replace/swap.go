@@ -156,7 +156,7 @@ func afterPowerUp(in *Input, c *cand) []string {
 	}
 	s := c.Family.SignText()
 	return []string{
-		fmt.Sprintf("after power-up: output %s%.2f V ±%g %% at full load; ripple at the output a few mV (a scope, AC-coupled)", s, c.VoutV, c.Family.Tolerance*100),
+		fmt.Sprintf("after power-up: output %s%.2f V ±%g %% at full load; ripple at the output a few mV (a scope, AC-coupled)", s, c.outV, c.Family.Tolerance*100),
 		fmt.Sprintf("after 10 minutes at full load: case about %.0f °C (expect within 10 °C); do not touch it bare-handed", tcase),
 	}
 }

@@ -111,14 +111,6 @@ func (l ErrorList) Sort() {
 	})
 }
 
-// Err returns the list as an error, or nil when it is empty.
-func (l ErrorList) Err() error {
-	if len(l) == 0 {
-		return nil
-	}
-	return l
-}
-
 // Error returns the first error and how many more there are.
 func (l ErrorList) Error() string {
 	switch len(l) {
@@ -154,7 +146,16 @@ func Decode(file string, data []byte, v any, hint string) (lz *Lazy, errs ErrorL
 			if perr.Usage != "" {
 				msg += " (" + strings.TrimSpace(strings.SplitN(perr.Usage, "\n", 2)[0]) + ")"
 			}
-			errs = append(errs, &Error{File: file, Line: perr.Position.Line, Col: perr.Position.Col, Key: perr.LastKey, Err: errors.New(msg)})
+			e := &Error{File: file, Line: perr.Position.Line, Col: perr.Position.Col, Key: perr.LastKey, Err: errors.New(msg)}
+			// A value refused by its type (a word not in a vocabulary) names the
+			// key without array indices; give the indexed path written there.
+			for _, ent := range lz.Index() {
+				if perr.LastKey != "" && ent.Stripped == perr.LastKey && ent.Line == e.Line {
+					e.Key = ent.Path
+					break
+				}
+			}
+			errs = append(errs, e)
 			return lz, errs, false
 		}
 		if m := typeErrRE.FindStringSubmatch(err.Error()); m != nil {

@@ -21,6 +21,7 @@ import (
 	"strconv"
 	"strings"
 	"unicode"
+	"unicode/utf8"
 )
 
 // ErrSyntax reports a string that is not a number with an optional prefix and unit.
@@ -75,7 +76,7 @@ func ParseIn(s, unit string, scale float64) (float64, error) {
 // parse returns the value and whether it carried a prefix or a unit word.
 func parse(s, unit string) (float64, bool, error) {
 	orig := s
-	s = strings.TrimSpace(s)
+	s = strings.TrimSpace(normalize.Replace(s))
 	if s == "" {
 		return 0, false, fmt.Errorf("%w: empty string", ErrSyntax)
 	}
@@ -90,6 +91,7 @@ func parse(s, unit string) (float64, bool, error) {
 	if s == "" {
 		return 0, false, fmt.Errorf("%w: %q has a unit but no number", ErrSyntax, orig)
 	}
+	s = joinPrefix(s)
 	mult := 1.0
 	// Find the first letter that is not part of a decimal exponent.
 	idx := -1
@@ -147,6 +149,26 @@ func parse(s, unit string) (float64, bool, error) {
 		return 0, false, fmt.Errorf("%w: %q is out of range", ErrSyntax, orig)
 	}
 	return f, marked, nil
+}
+
+// normalize maps the look-alike characters a printed value may carry to the
+// ones the parser knows: the minus sign (U+2212) to "-", the ohm sign
+// (U+2126) to the Greek capital omega, the Greek small mu to the micro sign.
+var normalize = strings.NewReplacer("\u2212", "-", "\u2126", "Ω", "μ", "µ")
+
+// joinPrefix removes the spaces between a number and its prefix letter
+// ("4.7 k" → "4.7k"), so that printed values such as "4.7 kΩ" read back.
+func joinPrefix(s string) string {
+	i := strings.IndexFunc(s, unicode.IsSpace)
+	if i < 0 {
+		return s
+	}
+	rest := strings.TrimLeftFunc(s[i:], unicode.IsSpace)
+	r, _ := utf8.DecodeRuneInString(rest)
+	if _, ok := prefixes[r]; ok && len(rest) == utf8.RuneLen(r) && r != 'R' && r != 'r' {
+		return s[:i] + rest
+	}
+	return s
 }
 
 // trimUnit removes a trailing unit word for unit from s.

@@ -41,6 +41,16 @@ func TestParse(t *testing.T) {
 		{"50Hz", "Hz", 50},
 		{"4.7k", "Ω", 4700},
 		{" 5 V ", "V", 5},
+		// What report.Num prints reads back (issue 13): a space between the
+		// number and the prefixed unit, µ and Ω, the minus sign U+2212.
+		{"2200 µF", "F", 2200e-6},
+		{"2200 μF", "F", 2200e-6}, // Greek small mu
+		{"4.7 kΩ", "Ω", 4700},
+		{"4.7 k\u2126", "Ω", 4700}, // the ohm sign
+		{"450 mA", "A", 0.45},
+		{"\u221215.02 V", "V", -15.02},
+		{"220 mΩ", "Ω", 0.22},
+		{"10 k", "Ω", 1e4},
 	}
 	for _, tt := range tests {
 		got, err := Parse(tt.in, tt.unit)
@@ -55,7 +65,7 @@ func TestParse(t *testing.T) {
 }
 
 func TestParseErrors(t *testing.T) {
-	for _, in := range []string{"", "NaN", "Inf", "-inf", "4k7k", "4.7k7", "x", "12 parsecs", "1e999", "5q", "k", "V", "1_000"} {
+	for _, in := range []string{"", "NaN", "Inf", "-inf", "4k7k", "4.7k7", "x", "12 parsecs", "1e999", "5q", "k", "V", "1_000", "12 5", "4 k 7", "4 R"} {
 		if v, err := Parse(in, "V"); err == nil {
 			t.Errorf("Parse(%q) = %g, want an error", in, v)
 		} else if !errors.Is(err, ErrSyntax) {

@@ -119,5 +119,8 @@ func typeName(t reflect.Type) string {
 	case reflect.Struct:
 		return "catalog." + t.Name()
 	}
+	if t.PkgPath() != "" { // a catalog word type such as catalog.Pin
+		return "catalog." + t.Name()
+	}
 	return t.Name()
 }
