@@ -128,6 +128,10 @@ type Family struct {
 	// Tolerance is the output (or reference) tolerance over line, load and
 	// temperature, as a fraction.
 	Tolerance float64 `toml:"tolerance" json:"tolerance"`
+	// Tolerance25C is the tighter tolerance the datasheet gives at 25 °C
+	// junction temperature, as a fraction; 0 = not stated. Checks use
+	// Tolerance, the overall figure.
+	Tolerance25C float64 `toml:"tolerance_25c" json:"tolerance_25c,omitempty"`
 	// CurrentA is the rated output current, amperes.
 	CurrentA float64 `toml:"current_a" json:"current_a"`
 	// VinMaxV is a fixed part's absolute maximum input (magnitude), volts;

@@ -152,6 +152,9 @@ func lintFamily(c *Catalog, f *Family, errs *ErrorList) {
 	if f.Cout.ESRMaxOhm > 0 && f.Cout.ESRMinOhm > f.Cout.ESRMaxOhm {
 		p.add(errs, "cout.esr_min_ohm", "esr_min_ohm %g is above esr_max_ohm %g; swap them", f.Cout.ESRMinOhm, f.Cout.ESRMaxOhm)
 	}
+	if f.Tolerance25C < 0 || bad(f.Tolerance25C) || (f.Tolerance25C > 0 && f.Tolerance > 0 && f.Tolerance25C > f.Tolerance) {
+		p.add(errs, "tolerance_25c", "tolerance_25c = %g must be a fraction no larger than the overall tolerance %g", f.Tolerance25C, f.Tolerance)
+	}
 	if f.IqTypMA > 0 && f.IqMA > 0 && f.IqTypMA > f.IqMA {
 		p.add(errs, "iq_typ_ma", "iq_typ_ma %g is above the maximum iq_ma %g", f.IqTypMA, f.IqMA)
 	}

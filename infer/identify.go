@@ -115,10 +115,11 @@ var wiredLikelihood = map[string]map[Wiring]float64{
 	catalog.PinAdj: {WiredNetwork: 0.85, WiredGround: 0.10, WiredLoad: 0.02, WiredUnregulated: 0.015, WiredOpen: 0.015},
 	catalog.PinNC:  {WiredOpen: 0.70, WiredGround: 0.1, WiredNetwork: 0.05, WiredLoad: 0.1, WiredUnregulated: 0.05},
 	catalog.PinEn:  {WiredGround: 0.70, WiredNetwork: 0.1, WiredUnregulated: 0.1, WiredLoad: 0.05, WiredOpen: 0.05},
+	catalog.PinInh: {WiredGround: 0.70, WiredNetwork: 0.1, WiredUnregulated: 0.1, WiredLoad: 0.05, WiredOpen: 0.05},
 }
 
 var functionWords = map[string]string{
-	catalog.PinIn: "IN", catalog.PinOut: "OUT", catalog.PinGnd: "GND", catalog.PinAdj: "ADJ", catalog.PinNC: "NC", catalog.PinEn: "EN",
+	catalog.PinIn: "IN", catalog.PinOut: "OUT", catalog.PinGnd: "GND", catalog.PinAdj: "ADJ", catalog.PinNC: "NC", catalog.PinEn: "EN", catalog.PinInh: "INH",
 }
 
 // typicalHeadroom is the fraction of the datasheet's worst-case dropout
@@ -142,26 +143,10 @@ func window(z float64) float64 {
 
 // opPoint holds what the evidence says about the circuit, shared by all hypotheses.
 type opPoint struct {
-	input      *Operating // the input model (peak only), shared with replacement
-	fuzzyHit   map[string]bool
-	marking    string // normalised
-	legible    bool
-	nLegible   int // legible characters of the marking
-	matches    map[markKey]markMatch
-	expansions map[*catalog.Family][]catalog.Expansion
-	text       bool // format reason texts
-}
-
-// markKey and markMatch cache the marking match of a family at a voltage.
-type markKey struct {
-	f    *catalog.Family
-	vout float64
-}
-
-type markMatch struct {
-	e  catalog.Expansion
-	n  int
-	ok bool
+	input   *Operating             // the input model (peak only), shared with replacement
+	marks   map[string]catalog.Hit // the marking decoded, by family id
+	legible bool
+	text    bool // format reason texts
 }
 
 // Identify ranks the catalog's hypotheses for the evidence.
@@ -263,13 +248,13 @@ func Identify(c *catalog.Catalog, ev *Evidence, opts Options) (*Result, error) {
 
 // operatingPoint prepares the marking matches and the input model.
 func operatingPoint(c *catalog.Catalog, ev *Evidence) (*opPoint, error) {
-	op := &opPoint{marking: catalog.NormalizeMarking(ev.Marking), matches: map[markKey]markMatch{}, expansions: map[*catalog.Family][]catalog.Expansion{}}
-	op.legible = catalog.Legible(op.marking)
-	op.nLegible = len(catalog.StripWildcards(op.marking))
+	op := &opPoint{legible: catalog.Legible(catalog.NormalizeMarking(ev.Marking))}
 	if op.legible {
-		op.fuzzyHit = map[string]bool{}
+		op.marks = map[string]catalog.Hit{}
 		for _, h := range catalog.Find(c, ev.Marking) {
-			op.fuzzyHit[h.Family.ID] = true
+			if _, have := op.marks[h.Family.ID]; !have {
+				op.marks[h.Family.ID] = h
+			}
 		}
 	}
 	in, err := OperatingPoint(ev, OperatingOptions{Sweep: SweepPeak})
@@ -615,27 +600,25 @@ func likelihoods(h Hypothesis, ev *Evidence, op *opPoint) []Reason {
 			add("network.trimmer", 0.3, 0.5, "a trimmer in the network: a fixed part would need a lifted ground")
 		}
 	}
-	// Marking: a fit confirming n legible characters is worth n·ln 4 (a
-	// character read by chance matches about one time in four among the
-	// characters regulator markings use; common practice, no source).
+	// Marking, decoded by the catalog (prefix, number, voltage, package
+	// suffix; date codes left out): a fit confirming n characters of the
+	// number is worth n·ln 4 (a character read by chance matches about one
+	// time in four among the characters regulator markings use; common
+	// practice, no source). A package suffix that names another outline
+	// takes two characters' worth off.
 	if op.legible {
-		k := markKey{f, h.VoutV}
-		m, seen := op.matches[k]
-		if !seen {
-			exps, have := op.expansions[f]
-			if !have {
-				exps = f.Expand()
-				op.expansions[f] = exps
-			}
-			m.e, m.n, m.ok = catalog.BestMatch(exps, op.marking, h.VoutV)
-			op.matches[k] = m
-		}
-		if e, n, ok := m.e, m.n, m.ok; ok {
-			add("marking", 0.9, 0.9*math.Pow(4, -float64(n)), "marking %q fits %s (%d of %d legible characters confirmed)", ev.Marking, e.Expanded, n, op.nLegible)
-		} else if op.fuzzyHit[f.ID] {
-			add("marking", 0.05, 0.1, "marking %q: the legible characters appear in %s's markings, but no pattern fits this variant", ev.Marking, f.ID)
-		} else {
+		m, found := op.marks[f.ID]
+		voltOK, outlineOK := m.Fits(o, h.VoutV)
+		switch {
+		case !found:
 			add("marking", 0.01, 0.1, "marking %q fits no marking of %s", ev.Marking, f.ID)
+		case m.How == "fuzzy" || !voltOK:
+			add("marking", 0.05, 0.1, "marking %q %s; not this variant", ev.Marking, m.Detail)
+		case !outlineOK:
+			n := math.Max(m.Score-2, 0)
+			add("marking", 0.9, 0.9*math.Pow(4, -n), "marking %q %s; not this package", ev.Marking, m.Detail)
+		default:
+			add("marking", 0.9, 0.9*math.Pow(4, -math.Max(m.Score, 0)), "marking %q %s", ev.Marking, m.Detail)
 		}
 	}
 	return rs

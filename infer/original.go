@@ -62,7 +62,7 @@ func ParseVariant(c *catalog.Catalog, spec string) (Hypothesis, error) {
 			for _, q := range f.Packages {
 				outs = append(outs, q.Outline)
 			}
-			return Hypothesis{}, unknownVariant("%s does not come in %q (it comes in %s)", f.ID, parts[1], strings.Join(outs, ","))
+			return Hypothesis{}, unknownVariant("%s does not come in %q (it comes in %s)", f.ID, parts[1], strings.Join(outs, ", "))
 		}
 	}
 	h := Hypothesis{Family: f, Package: p, Outline: c.Outline(p.Outline)}

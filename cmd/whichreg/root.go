@@ -197,7 +197,7 @@ written into every record.`,
 	}
 	root.AddGroup(&cobra.Group{ID: groupWork, Title: "At the bench (in this order):"},
 		&cobra.Group{ID: groupTools, Title: "Catalog and calculations:"})
-	for _, c := range []*cobra.Command{newEvidenceCmd(app), newInferCmd(app, nil), newSwapCmd(app, nil), newRecordCmd(app, nil)} {
+	for _, c := range []*cobra.Command{newEvidenceCmd(app), newGuideCmd(app, nil), newInferCmd(app, nil), newSwapCmd(app, nil), newRecordCmd(app, nil)} {
 		c.GroupID = groupWork
 		root.AddCommand(c)
 	}
