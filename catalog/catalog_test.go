@@ -191,31 +191,6 @@ func TestFind(t *testing.T) {
 	}
 }
 
-func TestCompatible(t *testing.T) {
-	tests := []struct {
-		p, q string
-		want bool
-	}{
-		{"*317*", "LM317T", true},
-		{"*317*", "?M3?7", true},
-		{"*7805*", "78L05", false},
-		{"*79??*", "*12", true},
-		{"A?C", "AB", false},
-		{"*", "", true},
-		{"", "*", true},
-		{"AB", "A*B*", true},
-		{"A*", "B*", false},
-	}
-	for _, tt := range tests {
-		if got := catalog.Compatible(tt.p, tt.q); got != tt.want {
-			t.Errorf("Compatible(%q, %q) = %v, want %v", tt.p, tt.q, got, tt.want)
-		}
-		if got := catalog.Compatible(tt.q, tt.p); got != tt.want {
-			t.Errorf("Compatible is not symmetric for %q, %q", tt.q, tt.p)
-		}
-	}
-}
-
 // TestBadCatalogs lints each file under testdata/catalog/bad on top of the
 // built-in catalog and compares the messages with its golden file.
 func TestBadCatalogs(t *testing.T) {
@@ -318,7 +293,9 @@ func FuzzLoadCatalog(f *testing.F) {
 		if len(file.Families) > 0 {
 			catalog.Find(c, file.Families[0].ID)
 			for _, fam := range file.Families {
-				fam.Expand()
+				for _, m := range fam.Markings {
+					catalog.DecodeMarking(c, m)
+				}
 			}
 		}
 	})

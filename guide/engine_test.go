@@ -49,8 +49,8 @@ func TestReplies(t *testing.T) {
 		},
 		{
 			name:  "nothing to take back",
-			lines: []string{"back", "why", "quit", "5"},
-			kinds: []ReplyKind{Refused, Why, Quit, Quit},
+			lines: []string{"back", "why", "help", "quit", "5"},
+			kinds: []ReplyKind{Refused, Why, Help, Quit, Quit},
 		},
 		{
 			name:  "skip, then list and pick by number",
@@ -59,7 +59,7 @@ func TestReplies(t *testing.T) {
 		},
 		{
 			name:  "a choice may be shortened",
-			lines: []string{"list", "pins.2.wired_to", "gro"},
+			lines: []string{"list", "pins.2.wired_to", "'gro'"},
 			kinds: []ReplyKind{Listed, Picked, Accepted},
 			want:  start + "\n[pins.2]\nwired_to = \"ground\"\n",
 		},
@@ -186,5 +186,47 @@ func TestSaveFails(t *testing.T) {
 	}
 	if st := s.Next(); st.Done == nil {
 		t.Error("the session goes on after a failed save")
+	}
+}
+
+// fixed is an Identifier that ranks every document the same.
+type fixed struct{ r Ranking }
+
+func (f fixed) Rank(string, []byte) (*Ranking, error) { r := f.r; return &r, nil }
+
+// TestStopRules checks when a session ends: at the stop probability; below
+// it when nothing is worth asking, but only after the open lead voltages.
+func TestStopRules(t *testing.T) {
+	t.Parallel()
+	low := []Question{{Key: "output.amps", GainBits: 0.04}, {Key: "pins.2.volts", GainBits: 0.01}}
+	tests := []struct {
+		name    string
+		p       float64
+		qs      []Question
+		wantAsk string // "" = done
+	}{
+		{"sure leader", 0.96, []Question{{Key: "pins.1.volts", GainBits: 2}}, ""},
+		{"informative question", 0.5, []Question{{Key: "marking", GainBits: 0.3}}, "marking"},
+		{"nothing worth asking but a lead voltage", 0.5, low, "pins.2.volts"},
+		{"nothing worth asking", 0.5, low[:1], ""},
+		{"no questions", 0.5, nil, ""},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			t.Parallel()
+			id := fixed{Ranking{Leaders: []Leader{{Family: "78xx", Probability: tt.p}}, Questions: tt.qs}}
+			s, err := New(id, "x.toml", nil, Options{})
+			if err != nil {
+				t.Fatal(err)
+			}
+			st := s.Next()
+			got := ""
+			if st.Ask != nil {
+				got = st.Ask.Key
+			}
+			if got != tt.wantAsk {
+				t.Errorf("asks %q, want %q (done: %+v)", got, tt.wantAsk, st.Done)
+			}
+		})
 	}
 }

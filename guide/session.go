@@ -112,6 +112,7 @@ const (
 	Listed   ReplyKind = "listed"   // the next step is a Pick
 	Picked   ReplyKind = "picked"   // the picked question is asked next
 	Quit     ReplyKind = "quit"     // the session is over
+	Help     ReplyKind = "help"     // Reply.Lines say what can be typed
 	// Continued: the board reference named an existing file, which the
 	// session goes on with (Reply.Message says so).
 	Continued ReplyKind = "continued"
@@ -304,6 +305,8 @@ func (s *Session) Reply(line string) (Reply, error) {
 		return Reply{Kind: Listed}, nil
 	case "":
 		return Reply{Kind: Refused, Key: q.Key, Message: "type a value, or skip, back, why, list or quit"}, nil
+	case "help":
+		return Reply{Kind: Help, Lines: helpLines}, nil
 	}
 	if q.Key == refKey {
 		return s.start(line)
@@ -326,6 +329,17 @@ func keyed(line string) (key, value string, ok bool) {
 		return "", "", false
 	}
 	return key, strings.Trim(value, `"`), true
+}
+
+// helpLines say what can be typed at a prompt.
+var helpLines = []string{
+	"a value: 12.1, -15.02 V, 4k7, 450m, a word of the choices (or its first letters)",
+	"KEY = VALUE: fill another evidence key, e.g. output.amps = 0.45",
+	"skip: this cannot be measured; do not ask it again",
+	"back: take back the last answer",
+	"why: the leader's reasons",
+	"list: the other measurements worth making, to pick one",
+	"quit: end the session; every answer is already saved",
 }
 
 func isQuit(line string) bool {

@@ -73,6 +73,9 @@ func valueFor(q Question, answer string) (any, error) {
 		return nil, err
 	}
 	answer = strings.TrimSpace(answer)
+	if len(answer) >= 2 && (answer[0] == '"' || answer[0] == '\'') && answer[len(answer)-1] == answer[0] {
+		answer = answer[1 : len(answer)-1] // "?M3?7" typed with its quotes
+	}
 	if q.Kind == KindChoice {
 		answer = expandChoice(answer, q.Choices)
 	}

@@ -5,6 +5,8 @@ import (
 	"math"
 	"sort"
 	"strings"
+
+	"github.com/whichreg/whichreg/catalog"
 )
 
 // AskKind is how a measurement's answer is written.
@@ -48,7 +50,7 @@ type Measurement struct {
 // nextMeasurements ranks the measurements still open by expected
 // information gain over the leaders (mutual information between the leading
 // hypothesis and the outcome).
-func nextMeasurements(ev *Evidence, res *Result, n int) []Measurement {
+func nextMeasurements(c *catalog.Catalog, ev *Evidence, res *Result, n int) []Measurement {
 	// The leaders: the hypotheses that carry 95 % of the posterior (at most
 	// 20, at least 2), renormalised; the expected drop in entropy is taken
 	// over them.
@@ -65,7 +67,7 @@ func nextMeasurements(ev *Evidence, res *Result, n int) []Measurement {
 		hs[i].Probability /= mass
 	}
 	var out []Measurement
-	for _, m := range asks(ev, hs) {
+	for _, m := range asks(c, ev, hs) {
 		gain, joint := mutualInfo(hs, 0, m.predict)
 		if gain < 0.01 {
 			continue
@@ -88,9 +90,9 @@ func nextMeasurements(ev *Evidence, res *Result, n int) []Measurement {
 type outcomeDist map[string]float64
 
 // wiringDist is the distribution of the wiring word of a lead of function fn.
-func wiringDist(fn string) outcomeDist {
+func wiringDist(f *catalog.Family, fn string) outcomeDist {
 	d := outcomeDist{}
-	for w, p := range wiredLikelihood[fn] {
+	for w, p := range wiringOf(f, fn) {
 		d[string(w)] = p
 	}
 	return d

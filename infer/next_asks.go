@@ -38,10 +38,13 @@ type askScope struct {
 // scopeOf works out the [askScope] of the leaders, honouring a measured lead
 // count and a named package: no measurement of lead 5 on a three-lead part,
 // no tab on a TO-92.
-func scopeOf(ev *Evidence, hs []Candidate) askScope {
+func scopeOf(c *catalog.Catalog, ev *Evidence, hs []Candidate) askScope {
 	known := 0
+	if o := c.Outline(ev.Package); o != nil {
+		known = o.Leads
+	}
 	if ev.Outline != nil && ev.Outline.Leads != nil {
-		known = *ev.Outline.Leads
+		known = *ev.Outline.Leads // counted: it rules a name that disagrees
 	}
 	named := func(o *catalog.Outline) bool {
 		return ev.Package == "" || (o != nil && (strings.EqualFold(o.Name, ev.Package) || outlineHasAlias(o, ev.Package)))
@@ -49,12 +52,12 @@ func scopeOf(ev *Evidence, hs []Candidate) askScope {
 	var s askScope
 	outlines := map[string]*catalog.Outline{}
 	consider := func(strict bool) {
-		for _, c := range hs {
-			o := c.Outline
-			if c.Probability <= 0.01 || o == nil || (known > 0 && o.Leads != known) || (strict && !named(o)) {
+		for _, cd := range hs {
+			o := cd.Outline
+			if cd.Probability <= 0.01 || o == nil || (known > 0 && o.Leads != known) || (strict && !named(o)) {
 				continue
 			}
-			s.leads = max(s.leads, len(c.Package.Pins))
+			s.leads = max(s.leads, len(cd.Package.Pins))
 			s.caseful = s.caseful || o.Tab || o.MetalCan || o.CaseTerminal
 			outlines[o.Name] = o
 		}
@@ -62,6 +65,9 @@ func scopeOf(ev *Evidence, hs []Candidate) askScope {
 	consider(true)
 	if len(outlines) == 0 { // the named package fits no leader: ask about every leader's
 		consider(false)
+	}
+	if o := c.Outline(ev.Package); o != nil && (ev.Outline == nil || ev.Outline.Leads == nil) {
+		s.caseful = o.Tab || o.MetalCan || o.CaseTerminal
 	}
 	if known > 0 {
 		s.leads = known
@@ -76,8 +82,8 @@ func scopeOf(ev *Evidence, hs []Candidate) askScope {
 }
 
 // asks lists the measurements still open, each with its evidence key.
-func asks(ev *Evidence, hs []Candidate) []measurement {
-	sc := scopeOf(ev, hs)
+func asks(c *catalog.Catalog, ev *Evidence, hs []Candidate) []measurement {
+	sc := scopeOf(c, ev, hs)
 	var ms []measurement
 	for k := 1; k <= sc.leads; k++ {
 		p, _ := ev.Lead(k)
@@ -139,7 +145,7 @@ func continuityAsk(k int, sc askScope) measurement {
 			if k > len(h.Package.Pins) {
 				return outcomeDist{"no such lead": 1}
 			}
-			return wiringDist(h.Package.Pins[k-1])
+			return wiringDist(h.Family, h.Package.Pins[k-1])
 		},
 		describe: func(key string) string { return fmt.Sprintf("lead %d to %s", k, key) },
 	}

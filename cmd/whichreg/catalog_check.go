@@ -6,6 +6,7 @@ import (
 	"github.com/spf13/cobra"
 	"github.com/whichreg/whichreg/catalog"
 	"github.com/whichreg/whichreg/catalog/builtin"
+	"github.com/whichreg/whichreg/report"
 )
 
 type catalogCheckOptions struct {
@@ -37,6 +38,14 @@ It exits 1 when there is any.`,
 }
 
 // problemJSON is one lint problem in `catalog check --format json`.
+// catalogCheckDoc is the JSON document of `catalog check`.
+type catalogCheckDoc struct {
+	Schema   string        `json:"schema"`
+	Families int           `json:"families"`
+	Outlines int           `json:"outlines"`
+	Problems []problemJSON `json:"problems"`
+}
+
 type problemJSON struct {
 	File    string `json:"file"`
 	Line    int    `json:"line"`
@@ -68,14 +77,15 @@ func catalogCheckRun(opts *catalogCheckOptions) error {
 		for _, e := range errs {
 			ps = append(ps, problemJSON{e.File, e.Line, e.Col, e.Key, e.Err.Error()})
 		}
-		if err := writeJSON(out, map[string]any{"families": len(c.Families), "outlines": len(c.Outlines), "problems": ps}); err != nil {
+		if err := writeJSON(out, catalogCheckDoc{report.Schema("catalog-check"), len(c.Families), len(c.Outlines), ps}); err != nil {
 			return ioError(err)
 		}
 	} else if len(errs) == 0 {
 		fmt.Fprintf(out, "ok: %d families, %d outlines, no problems\n", len(c.Families), len(c.Outlines))
 	} else {
 		for _, e := range errs {
-			fmt.Fprintln(out, e)
+			// The file:line:col: prefix stays on the first line, for editors.
+			report.Fill(out, e.Error(), opts.app.Width(), "", "    ")
 		}
 		fmt.Fprintf(out, "%d problem(s)\n", len(errs))
 	}

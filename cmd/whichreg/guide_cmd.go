@@ -41,6 +41,7 @@ a choice may be shortened to its first letters) or with a word:
   back   take back the last answer
   why    the leader's reasons
   list   the other measurements worth making; pick one by number
+  help   what can be typed
   quit   end the session (so does Ctrl-D, or Ctrl-C)
 A reading made without being asked may be given as KEY = VALUE at any
 prompt, e.g. "output.amps = 0.45" (the keys are those of 'whichreg evidence
@@ -246,7 +247,7 @@ func (t *textGuide) fill(text, first, rest string) {
 func (t *textGuide) step(st guide.Step, _ *guide.Reply) {
 	if !t.shown {
 		t.shown = true
-		t.fill("Answer each question with a value, or skip, back, why, list or quit. Every answer is saved at once.", "", "")
+		t.fill("Answer each question with a value, or skip, back, why, list, help or quit. Every answer is saved at once.", "", "")
 	}
 	t.line("")
 	t.ranking(st.Ranking)
@@ -334,7 +335,7 @@ func (t *textGuide) reply(line string, r guide.Reply) {
 		t.line("  skipped %s: not asked again", r.Key)
 	case guide.Undone:
 		t.line("  took back %s", r.Key)
-	case guide.Why:
+	case guide.Why, guide.Help:
 		for _, l := range r.Lines {
 			if report.Width(l)+2 <= t.width {
 				t.line("  %s", l) // the columns of the reasons survive

@@ -80,9 +80,12 @@ func inferRun(o *inferOptions) error {
 	if listed == 0 {
 		listed = math.MaxInt
 	}
-	// Explain: how many candidates get their reasons' text (0: every one).
+	// Explain: how many candidates get their reasons' text.
 	explain := o.Top
-	if o.Top > 0 && o.Format != "json" {
+	switch {
+	case o.Top == 0:
+		explain = infer.ExplainAll
+	case o.Format != "json":
 		explain = max(o.Top, o.Why)
 	}
 	res, err := infer.Identify(c, ev, infer.Options{Explain: explain})

@@ -1,0 +1,294 @@
+package catalog
+
+import (
+	"fmt"
+	"strconv"
+	"strings"
+)
+
+// packageCode is one package letter code of a maker's ordering table: the
+// letters after the grade letters that say the outline.
+type packageCode struct {
+	code    string
+	outline string   // catalog outline name; "" = known code, outline not in the catalog
+	makers  []string // maker prefixes the reading holds for; nil = every maker
+	source  string
+}
+
+// packageCodes are read longest first; where makers disagree on a code the
+// reading is tied to their prefixes and an unknown maker gets no outline.
+var packageCodes = []packageCode{
+	{"D2T", "D2PAK", nil, "ST L78 DS0422 and onsemi MC7800/D, LM337/D: D2T = D2PAK (case 936)"},
+	{"DT", "DPAK", nil, "ST L78M (1994) CDT = DPAK; onsemi MC78M00/D CDT; National LM1117 DT = TO-252"},
+	{"KTT", "D2PAK", []string{"LM", "UA", "TL", "TLV", "REG"}, "TI TL783 SLVS036 and LM317 SLVS044: KTT = TO-263"},
+	{"KVU", "DPAK", []string{"LM", "UA", "TL", "TLV"}, "TI µA78M00 and LM317: KVU = TO-252, from memory"},
+	{"KCS", "TO-220", []string{"LM", "UA", "TL"}, "TI TL783 SLVS036 and µA7800 SLVS056: KCS = TO-220"},
+	{"KCT", "TO-220", []string{"LM", "UA", "TL"}, "TI LM317 SLVS044: KCT = TO-220"},
+	{"KC", "TO-220", []string{"UA", "TL"}, "TI µA7800 SLVS056 and TL783 SLVS036: KC = TO-220"},
+	{"KC", "TO-3", []string{"LM"}, "National LM78XX (1995/2000): LM7805CK aluminium TO-3, package KC02A; LM340KC, from memory"},
+	{"KTE", "", []string{"UA", "TL", "LM"}, "TI PowerFLEX (KTE), not in the catalog"},
+	{"DCY", "SOT-223", []string{"LM", "UA", "TL", "TLV", "REG"}, "TI LM340 / LM317 SOT-223 drawing DCY"},
+	{"EMP", "SOT-223", []string{"LM"}, "TI LM317 SLVS044: EMP = SOT-223, from memory"},
+	{"MP", "SOT-223", nil, "National LM340 / LM2940 / LM1117: MP = SOT-223 (TI SNOSBT0, LM2940 DS)"},
+	{"ST", "SOT-223", []string{"LT", "NCP", "NCV"}, "Linear Technology LT1117 CST and onsemi NCP1117 ST = SOT-223, from memory"},
+	{"LP", "TO-92", nil, "TI LM317L SLCS144 and µA78L00: LP = TO-92"},
+	{"PK", "SOT-89", []string{"UA"}, "TI µA78L00: PK = SOT-89, from memory"},
+	{"FP", "TO-220FP", nil, "fully moulded TO-220 (FP), from memory"},
+	{"FA", "TO-220FP", []string{"NJM"}, "JRC NJM78xx FA = TO-220F, from memory"},
+	{"MR", "SOT-23", []string{"XC"}, "Torex XC6206 MR = SOT-23, from memory"},
+	{"PR", "SOT-89", []string{"XC"}, "Torex XC6206 PR = SOT-89, from memory"},
+	{"TT", "SOT-23", []string{"MCP"}, "Microchip MCP1700 TT = SOT-23, from memory"},
+	{"MB", "SOT-89", []string{"MCP"}, "Microchip MCP1700 MB = SOT-89, from memory"},
+	{"TO", "TO-92", []string{"MCP"}, "Microchip MCP1700 TO = TO-92, from memory"},
+	{"T", "TO-3", []string{"L"}, "ST L78 / L78S (1993, 1998): T and CT = TO-3, CV = TO-220"},
+	{"T", "TO-220", nil, "National LM78xx/LM340/LM317 T = TO-220; onsemi MC7800/D CT = TO-220; Fairchild LM78XX CT"},
+	{"V", "TO-220", nil, "ST L78 CV, LD1117 V, L4940 V = TO-220"},
+	{"P", "TO-220FP", []string{"L", "LM", "LD", "LF"}, "ST L7800 (1998) ISOWATT220 CP; ST LM317 P = TO-220FP"},
+	{"P", "TO-92", []string{"MC", "KIA"}, "Motorola MC78L00 ACP = TO-92 (case 29), from memory"},
+	{"K", "TO-3", nil, "National LM309K, LM317K, LM340K (K02A); Motorola MC7900 CK (case 1-03)"},
+	{"H", "SOT-89", []string{"MC"}, "onsemi MC78L00 ACH = SOT-89, from memory"},
+	{"H", "TO-39", nil, "National LM109H/LM309H, LM317H (H03A); Linear Technology LT1086 H"},
+	{"Z", "TO-92", nil, "National LM78L05ACZ, LM317LZ; ST L78L ACZ = TO-92"},
+	{"D", "SO-8", nil, "TI LM317L SLCS144 (D = SOIC-8); onsemi MC78L00 ACD (case 751)"},
+	{"M", "D2PAK", []string{"LT"}, "Linear Technology LT1085 / LT1086 CM = DD (TO-263), from memory"},
+	{"M", "SO-8", []string{"LM", "LP"}, "National LM78L05ACM, LM317LM, LM2931M = SO-8, from memory"},
+	{"S", "SOT-223", []string{"LD"}, "ST LD1117 (2004) S = SOT-223"},
+	{"S", "D2PAK", []string{"LM", "LP"}, "National LM340 / LM2940: S = TO-263 (TI SNOSBT0, LM2940 DS)"},
+	{"U", "SOT-89", []string{"L"}, "ST L78L ACUTR = SOT-89, from memory"},
+	{"U", "D2PAK", []string{"MIC"}, "Micrel MIC2940A BU = TO-263, from memory"},
+	{"R", "DPAK", []string{"KA"}, "Fairchild KA78M05R = D-PAK, from memory"},
+	{"N", "", nil, "plastic DIP (N), no regulator outline"},
+}
+
+// gradeLetters stand before the package code: temperature range and
+// tolerance grades (A tighter tolerance, B/I/E extended temperature, C
+// commercial). onsemi MC7800/D (MC7805ACT, MC7805BT); ST L78 (L7805ABV).
+const gradeLetters = "ABCIE"
+
+// trailers are packing and lead-finish codes after the package: onsemi G
+// (Pb-free) and R4/T4 (reel), TI /NOPB, -TR tape and reel, X (National
+// tape), PBF (lead-free), E3. They say nothing about the part.
+var trailers = []string{"NOPB", "PBF", "TR", "R4", "T4", "T3", "T1", "E3", "G", "X", "R"}
+
+// Costs of characters the suffix tables do not explain.
+const (
+	unknownLetterCost = 0.5
+	unknownDigitCost  = 1.0
+	maxSuffixLen      = 16
+)
+
+// suffixRead is what the characters after a family's number say.
+type suffixRead struct {
+	outline string
+	code    string    // the package code read, "" when none
+	volts   []float64 // what the voltage code can mean
+	vtext   string    // the voltage code as printed
+	adj     bool      // ADJ
+	date    string    // a date code run on to the number
+	cost    float64
+	text    string   // the suffix as read, "" when empty
+	notes   []string // what was not understood
+}
+
+// readSuffix reads s (upper case, separators kept) for the given maker.
+func readSuffix(s, maker string) suffixRead {
+	r := suffixRead{text: strings.Trim(s, "-./+")}
+	if len(s) > maxSuffixLen {
+		r.cost += unknownLetterCost * float64(len(s)-maxSuffixLen)
+		r.notes = append(r.notes, "a long suffix, not read past its first 16 characters")
+		s = s[:maxSuffixLen]
+	}
+	p := &suffixParser{s: s, maker: maker}
+	best := p.parse(0, stPre)
+	r.outline, r.code, r.volts, r.vtext, r.adj, r.date = best.outline, best.code, best.volts, best.vtext, best.adj, best.date
+	r.cost += best.cost
+	if best.unknown != "" {
+		r.notes = append(r.notes, fmt.Sprintf("%q not understood", best.unknown))
+	}
+	return r
+}
+
+// Parser states: grade letters may come only before the package code.
+const (
+	stPre  = iota // before the package code
+	stPost        // after it
+)
+
+type parse struct {
+	cost    float64
+	outline string
+	code    string
+	volts   []float64
+	vtext   string
+	adj     bool
+	date    string
+	unknown string
+	known   int // characters explained, to break ties
+}
+
+type suffixParser struct {
+	s     string
+	maker string
+	memo  map[[2]int]parse
+}
+
+func (p *suffixParser) parse(i, st int) parse {
+	if p.memo == nil {
+		p.memo = map[[2]int]parse{}
+	}
+	k := [2]int{i, st}
+	if r, ok := p.memo[k]; ok {
+		return r
+	}
+	r := p.parse1(i, st)
+	p.memo[k] = r
+	return r
+}
+
+func better(a, b parse) bool {
+	if a.cost != b.cost {
+		return a.cost < b.cost
+	}
+	if a.known != b.known {
+		return a.known > b.known
+	}
+	return a.outline != "" && b.outline == ""
+}
+
+func (p *suffixParser) parse1(i, st int) parse {
+	s := p.s
+	if i >= len(s) {
+		return parse{}
+	}
+	ch := s[i]
+	switch ch {
+	case '-', '.', '/', '+', '?', '*':
+		return p.parse(i+1, st)
+	}
+	// The fallback: this character is not understood.
+	best := p.parse(i+1, st)
+	if ch >= '0' && ch <= '9' {
+		best.cost += unknownDigitCost
+	} else {
+		best.cost += unknownLetterCost
+	}
+	best.unknown = string(ch) + best.unknown
+	try := func(n int, nextSt int, set func(*parse) bool) {
+		r := p.parse(i+n, nextSt)
+		if !set(&r) {
+			return
+		}
+		r.known += n
+		if better(r, best) {
+			best = r
+		}
+	}
+	if st == stPre && strings.IndexByte(gradeLetters, ch) >= 0 {
+		try(1, stPre, func(*parse) bool { return true })
+	}
+	for _, pc := range packageCodes {
+		if !strings.HasPrefix(s[i:], pc.code) {
+			continue
+		}
+		outline := pc.outline
+		if pc.makers != nil && !hasString(pc.makers, p.maker) {
+			outline = "" // another maker's code: known, but says no outline here
+		}
+		code := pc.code
+		try(len(code), stPost, func(r *parse) bool {
+			if r.code != "" {
+				r.cost++ // two package codes
+			}
+			r.code, r.outline = code, outline
+			return true
+		})
+	}
+	if st == stPost || i > 0 {
+		for _, t := range trailers {
+			if strings.HasPrefix(s[i:], t) {
+				try(len(t), stPost, func(*parse) bool { return true })
+			}
+		}
+	}
+	if strings.HasPrefix(s[i:], "ADJ") {
+		try(3, stPost, func(r *parse) bool { r.adj = true; return len(r.volts) == 0 })
+	}
+	if n, vs, text := readVolts(s[i:]); n > 0 && (i == 0 || !isDigit(s[i-1])) {
+		try(n, stPost, func(r *parse) bool {
+			if len(r.volts) > 0 || r.adj {
+				return false
+			}
+			r.volts, r.vtext = vs, text
+			return true
+		})
+	}
+	if n := dateRun(s[i:]); n > 0 && i > 0 {
+		try(n, stPost, func(r *parse) bool { r.date = s[i : i+4]; return true })
+	}
+	return best
+}
+
+// readVolts reads a voltage code at the start of s: "5.0", "3.3", "12",
+// "33" (3.3 or 33 V), "285" (2.85 V). It returns the characters used, the
+// voltages it can mean and the code as printed.
+func readVolts(s string) (int, []float64, string) {
+	n := 0
+	for n < len(s) && n < 3 && isDigit(s[n]) {
+		n++
+	}
+	if n == 0 {
+		return 0, nil, ""
+	}
+	if n < len(s) && s[n] == '.' && n+1 < len(s) && isDigit(s[n+1]) {
+		m := n + 1
+		for m < len(s) && m < n+3 && isDigit(s[m]) {
+			m++
+		}
+		v, err := strconv.ParseFloat(s[:m], 64)
+		if err != nil || v == 0 {
+			return 0, nil, ""
+		}
+		return m, []float64{v}, s[:m]
+	}
+	if n < len(s) && isDigit(s[n]) {
+		return 0, nil, "" // four digits or more: no voltage code
+	}
+	d := s[:n]
+	x, _ := strconv.Atoi(d)
+	if x == 0 {
+		return 0, nil, ""
+	}
+	var vs []float64
+	switch n {
+	case 1:
+		vs = []float64{float64(x)}
+	case 2:
+		vs = []float64{float64(x) / 10, float64(x)} // 33 = 3.3 V; 12 = 1.2 or 12 V
+		if d[0] == '0' {
+			vs = []float64{float64(x)} // 05 = 5 V
+		}
+	case 3:
+		vs = []float64{float64(x) / 100, float64(x) / 10} // 285 = 2.85 V, 120 = 12.0 V
+	}
+	return n, vs, d
+}
+
+// dateRun is 4 when s opens with a four-digit year-and-week group that ends
+// the suffix.
+func dateRun(s string) int {
+	if len(s) == 4 && isDateCode([]byte(s)) {
+		return 4
+	}
+	return 0
+}
+
+func isDigit(c byte) bool { return c >= '0' && c <= '9' }
+
+func hasString(ss []string, s string) bool {
+	for _, x := range ss {
+		if x == s {
+			return true
+		}
+	}
+	return false
+}
