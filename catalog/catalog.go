@@ -116,7 +116,8 @@ type Family struct {
 	// source (VGS) over its working range, from the datasheet.
 	ControlDropV []float64 `toml:"control_drop_v" json:"control_drop_v,omitempty"`
 	// Pass is the pass element: "npn" (classic, ≈2 V headroom), "npn-ldo"
-	// (quasi-LDO, ≈1.3 V), "pnp" (LDO), "switching" (drop-in module). "" = npn.
+	// (quasi-LDO, ≈1.3 V), "pnp" (LDO), "pmos" (CMOS LDO), "switching"
+	// (drop-in module). "" = npn.
 	Pass Pass `toml:"pass" json:"pass,omitempty"`
 	// OutputsV are the standard output voltages of a fixed family, as magnitudes in volts.
 	OutputsV []float64 `toml:"outputs_v" json:"outputs_v"`
