@@ -70,18 +70,42 @@ func TestDivider(t *testing.T) {
 }
 
 func TestChooseDivider(t *testing.T) {
-	// A 317 set to 12 V with the 10 mA minimum load: R1 ≤ 125 Ω.
-	c, err := ChooseDivider(DividerSpec{TargetV: 12, VrefV: 1.25, ITypA: 50e-6, IMaxA: 100e-6, MinLoadA: 10e-3})
+	// A 317 (±4 %, National LM317) set to 12 V with a 10 mA minimum load:
+	// the divider current stays within 10 to 25 mA, so 50 Ω ≤ R1 ≤ 125 Ω.
+	// By hand: R1 120 Ω → 1.25/120 = 10.42 mA; R2 ideal (12 − 1.25)/(10.42 mA
+	// + 50 µA) = 1027 Ω → E24 1 kΩ; Vout = 1.25·(1 + 1000/120) + 50 µA·1 kΩ
+	// = 11.717 V (−2.4 %, inside ±4 %, no trimmer); R2 carries 10.42 +
+	// 0.1 mA at most: 0.111 W → a 0.25 W part; R1 1.25²/120 = 13 mW.
+	c, err := ChooseDivider(DividerSpec{TargetV: 12, VrefV: 1.25, ITypA: 50e-6, IMaxA: 100e-6, MinLoadA: 10e-3, Tolerance: 0.04})
 	if err != nil {
 		t.Fatal(err)
 	}
-	if c.DividerA < 10e-3 || math.Abs(c.ErrorV) > 0.01*12 || c.SpreadHighV < c.VoutV || c.SpreadLowV > c.VoutV {
-		t.Errorf("ChooseDivider = %+v", c)
+	if c.R1Ohm != 120 || c.R2Ohm != 1000 || c.DividerA < 10e-3 || c.DividerA > 25e-3 || c.Trimmer ||
+		math.Abs(c.VoutV-11.7167) > 1e-3 || math.Abs(c.R2W-0.1107) > 1e-3 || c.R2RatingW != 0.25 || math.Abs(c.R1W-0.01302) > 1e-4 {
+		t.Errorf("ChooseDivider = %+v; want 120 Ω over 1 kΩ, 11.72 V, R2 0.111 W (0.25 W part)", c)
 	}
 	// Check by hand: the result reproduces itself through DividerVout.
 	v, _ := DividerVout(1.25, 50e-6, c.R1Ohm, c.R2Ohm, 0)
 	if math.Abs(v-c.VoutV) > 1e-12 {
 		t.Errorf("VoutV %g does not match the formula %g", c.VoutV, v)
+	}
+	// The same in E96 (IEC 60063): R1 124 Ω, ideal R2 10.75/(10.08 mA +
+	// 50 µA) = 1061 Ω → 1.07 kΩ gives 1.25·(1 + 1070/124) + 53.5 mV = 12.09 V.
+	e96, _ := Series("E96")
+	c96, err := ChooseDivider(DividerSpec{TargetV: 12, VrefV: 1.25, ITypA: 50e-6, IMaxA: 100e-6, MinLoadA: 10e-3, Tolerance: 0.04, Series: e96})
+	if err != nil || c96.R1Ohm != 124 || c96.R2Ohm != 1070 {
+		t.Errorf("E96 divider %+v, %v; want 124 Ω over 1.07 kΩ", c96, err)
+	}
+	// No minimum load given: the default 5 mA, so R1 from 100 to 250 Ω.
+	cd, err := ChooseDivider(DividerSpec{TargetV: 12, VrefV: 1.25, ITypA: 50e-6, IMaxA: 100e-6})
+	if err != nil || cd.DividerA < DefaultMinLoadA || cd.DividerA > DividerSpan*DefaultMinLoadA {
+		t.Errorf("default minimum load: %+v, %v", cd, err)
+	}
+	// A tight tolerance the E6 series cannot meet asks for a trimmer.
+	e6, _ := Series("E6")
+	ct, err := ChooseDivider(DividerSpec{TargetV: 12, VrefV: 1.25, MinLoadA: 10e-3, Tolerance: 0.001, Series: e6})
+	if err != nil || !ct.Trimmer {
+		t.Errorf("E6 at 0.1 %%: %+v, %v; want a trimmer", ct, err)
 	}
 	// TI TL783 SLVS036 design considerations: R1 = 82 Ω gives the 15 mA
 	// minimum load (1.25 V / 82 Ω = 15.2 mA).
