@@ -305,7 +305,7 @@ func BenchmarkIdentifyAllReasons(b *testing.B) {
 	c := builtinCatalog(b)
 	ev := load(b, c, "../testdata/demo/bench-supply-negative.toml")
 	for b.Loop() {
-		if _, err := infer.Identify(c, ev, infer.Options{}); err != nil {
+		if _, err := infer.Identify(c, ev, infer.Options{Explain: infer.ExplainAll}); err != nil {
 			b.Fatal(err)
 		}
 	}

@@ -17,7 +17,7 @@ type term func(sc *scene, h Hypothesis, v voltsView, r *reasons)
 func likelihoodTerms() []term {
 	return []term{
 		termPackage, termOutline, termWiring, termCase,
-		termRegulation, termOutputOnly, termPolarity, termHeadroom,
+		termRegulation, termOutputOnly, termPolarity, termHeadroom, termBenchDropout,
 		termControlDrop, termConduction, termShunt,
 		termCurrent, termInputMax, termDivider, termCommonParts, termTrimmer,
 		termMarking,

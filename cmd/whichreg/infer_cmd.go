@@ -26,7 +26,7 @@ func newInferCmd(app *App, runF func(*inferOptions) error) *cobra.Command {
 	opts := &inferOptions{app: app}
 	cmd := &cobra.Command{
 		Use:   "infer EVIDENCE.toml|-",
-		Short: "Rank what an unmarked regulator could be, with probabilities and reasons",
+		Short: "Rank what an unmarked regulator could be, with the reasons",
 		Long: `infer ranks every (family, outline, output voltage) in the catalog against
 what you measured. Each candidate's score is the sum of its reasons: a prior
 (commonness, era) and one term per piece of evidence, as a natural-log

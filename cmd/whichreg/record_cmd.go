@@ -30,7 +30,7 @@ func newRecordCmd(app *App, runF func(*recordOptions) error) *cobra.Command {
 	opts := &recordOptions{app: app}
 	cmd := &cobra.Command{
 		Use:   "record EVIDENCE.toml --choose ID[:OUTLINE]",
-		Short: "Write the substitution record: evidence, identification, the chosen part's checks, cautions",
+		Short: "Write the substitution record of the repair, with its checks",
 		Long: `record writes what a technician files with the repair: the equipment and
 reference, the evidence as measured, the identification (top five with their
 reasons), the chosen replacement with its full check table and install notes,

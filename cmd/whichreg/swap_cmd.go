@@ -28,7 +28,7 @@ func newSwapCmd(app *App, runF func(*swapOptions) error) *cobra.Command {
 	opts := &swapOptions{app: app}
 	cmd := &cobra.Command{
 		Use:   "swap EVIDENCE.toml",
-		Short: "Rank current-production replacements, each checked against the real circuit",
+		Short: "Rank current-production replacements checked against the circuit",
 		Long: `swap takes the original from infer's leader (or from --original) and checks
 every current-production candidate in every package: outline and footprint,
 lead-by-lead function, tab potential against the mounting, polarity, output
