@@ -3,11 +3,69 @@ package infer
 import (
 	"fmt"
 	"math"
+	"sort"
+	"strings"
+
+	"github.com/whichreg/whichreg/catalog"
+	"github.com/whichreg/whichreg/infer/circuit"
 )
 
-// conflicts lists evidence that contradicts itself, and evidence that every
-// leading candidate contradicts.
-func conflicts(ev *Evidence, res *Result) []string {
+// conflicts lists evidence that contradicts itself, evidence that every
+// leading candidate contradicts, and the cross-checks that failed. They are
+// listed, not errors: the ranking still answers.
+func (sc *scene) conflicts(res *Result) []string {
+	ev := sc.ev
+	out := selfContradictions(ev)
+	out = append(out, sc.packageSlip()...)
+	out = append(out, sc.inputSlip(res)...)
+	out = append(out, sc.markingSlip(res)...)
+	out = append(out, sc.reversedLeads(res)...)
+	// Voltages that fit no regulator's pinout at all.
+	regs, reversed := 0, 0
+	for _, c := range res.Candidates {
+		if !isRegulator(c.Hypothesis) {
+			continue
+		}
+		v := viewOf(c.Hypothesis, ev)
+		if v.haveIn && v.haveOut {
+			regs++
+			if v.sign*(v.in-v.out) < -0.3 {
+				reversed++
+			}
+		}
+	}
+	allReversed := regs > 0 && reversed == regs
+	if allReversed {
+		out = append(out, "for every regulator pinout in the catalog the output lies beyond the input: check which lead is which and the meter's polarity")
+	}
+	// Evidence every leader contradicts.
+	lead := res.Candidates[:min(5, len(res.Candidates))]
+	if len(lead) > 0 {
+		for _, r := range lead[0].Reasons {
+			if r.Weight > -2 || r.Evidence == "prior" || r.Evidence == "year" || r.Evidence == "voltages.headroom" && allReversed {
+				continue
+			}
+			all := true
+			for _, c := range lead[1:] {
+				if w, ok := weightOf(c, r.Evidence); !ok || w > -2 {
+					all = false
+					break
+				}
+			}
+			switch {
+			case all:
+				out = append(out, fmt.Sprintf("%s: none of the leading candidates explains it (leader: %s)", r.Evidence, r.Text))
+			case r.Weight <= math.Log(vetoRatio)+1e-9:
+				out = append(out, fmt.Sprintf("%s: the leader %s cannot produce it (%s); a slip in the notes is the likeliest explanation", r.Evidence, lead[0].name(), r.Text))
+			}
+		}
+	}
+	return out
+}
+
+// selfContradictions are readings that disagree with the evidence's own
+// wiring.
+func selfContradictions(ev *Evidence) []string {
 	var out []string
 	for _, n := range ev.Leads() {
 		p, _ := ev.Lead(n)
@@ -16,6 +74,20 @@ func conflicts(ev *Evidence, res *Result) []string {
 		}
 		if p.WiredTo == WiredOpen && p.Volts.Set && math.Abs(p.Volts.V) > 0.3 {
 			out = append(out, fmt.Sprintf("pins.%d is open but reads %+.2f V", n, p.Volts.V))
+		}
+	}
+	// The rail a lead feeds cannot stand beyond the rail another lead draws from.
+	for _, a := range ev.Leads() {
+		pa, _ := ev.Lead(a)
+		if pa.WiredTo != WiredUnregulated || !pa.Volts.Set {
+			continue
+		}
+		for _, b := range ev.Leads() {
+			pb, _ := ev.Lead(b)
+			if pb.WiredTo == WiredLoad && pb.Volts.Set && pa.Volts.V*pb.Volts.V >= 0 && math.Abs(pb.Volts.V) > math.Abs(pa.Volts.V)+0.3 {
+				out = append(out, fmt.Sprintf("lead %d (wired to the load) reads %+.2f V, beyond lead %d (wired to the unregulated rail) at %+.2f V: "+
+					"a series part's input sits beyond its output; check the wiring notes and the readings (swapped?)", b, pb.Volts.V, a, pa.Volts.V))
+			}
 		}
 	}
 	if cs := ev.Case; cs != nil && cs.TiedToPin != nil && *cs.TiedToPin > 0 {
@@ -28,44 +100,165 @@ func conflicts(ev *Evidence, res *Result) []string {
 			}
 		}
 	}
-	// Voltages that fit no pinout at all.
-	headroom, reversed := 0, 0
-	for _, c := range res.Candidates {
-		for _, r := range c.Reasons {
-			if r.Evidence == "voltages.headroom" {
-				headroom++
-				if r.Weight < math.Log(0.01) {
-					reversed++
-				}
-			}
-		}
-	}
-	if headroom > 0 && reversed == headroom {
-		out = append(out, "for every pinout in the catalog the output lies beyond the input: check which lead is which and the meter's polarity")
-	}
-	// Evidence every leader contradicts.
-	lead := res.Candidates
-	if len(lead) > 5 {
-		lead = lead[:5]
-	}
-	if len(lead) > 0 {
-		for _, r := range lead[0].Reasons {
-			if r.Weight > -2 || r.Evidence == "prior" || r.Evidence == "year" || r.Evidence == "voltages.headroom" && reversed == headroom {
-				continue
-			}
-			all := true
-			for _, c := range lead[1:] {
-				if w, ok := weightOf(c, r.Evidence); !ok || w > -2 {
-					all = false
-					break
-				}
-			}
-			if all {
-				out = append(out, fmt.Sprintf("%s: none of the leading candidates explains it (leader: %s)", r.Evidence, r.Text))
-			}
-		}
-	}
 	return out
+}
+
+// packageSlip: the named package against the leads counted.
+func (sc *scene) packageSlip() []string {
+	if !sc.packageContradicted() {
+		return nil
+	}
+	n := *sc.ev.Outline.Leads
+	var names []string
+	for _, o := range sc.c.Outlines {
+		if o.Leads == n {
+			names = append(names, o.Name)
+		}
+	}
+	sort.Strings(names)
+	also := ""
+	if len(names) > 0 {
+		also = fmt.Sprintf(" (%d-lead outlines: %s)", n, strings.Join(names, ", "))
+	}
+	return []string{fmt.Sprintf("package %s is named but %d leads were counted: the ranking uses the measured outline; the package name looks wrong%s",
+		sc.ev.Package, n, also)}
+}
+
+// inputLead returns the reading of the part's input: a lead wired to the
+// unregulated rail, else the leader's IN lead; ok is false when neither is
+// measured.
+func inputLead(ev *Evidence, res *Result) (n int, v float64, ok bool) {
+	for _, k := range ev.Leads() {
+		if p, _ := ev.Lead(k); p.WiredTo == WiredUnregulated && p.Volts.Set {
+			return k, p.Volts.V, true
+		}
+	}
+	if len(res.Candidates) == 0 || !isRegulator(res.Candidates[0].Hypothesis) {
+		return 0, 0, false
+	}
+	if k := res.Candidates[0].Package.Lead(catalog.PinIn); k > 0 {
+		if p, _ := ev.Lead(k); p.Volts.Set {
+			return k, p.Volts.V, true
+		}
+	}
+	return 0, 0, false
+}
+
+// inputSlip: the input lead's reading against the rectifier model's range.
+// A reading above the highest peak the model allows (high mains, light load)
+// or below its lowest trough (low mains, full load, low filter capacitance)
+// says a figure of the [input] table is wrong: most often the secondary.
+func (sc *scene) inputSlip(res *Result) []string {
+	in := sc.ev.Input
+	if sc.input.Source != InputRectifier || in == nil {
+		return nil
+	}
+	n, v, ok := inputLead(sc.ev, res)
+	if !ok {
+		return nil
+	}
+	vm := math.Abs(v)
+	desc := fmt.Sprintf("%s V secondary, %s", trimFloat(in.SecondaryVrms.V), in.Rectifier)
+	if hi := sc.input.Peak.V; vm > hi*1.05 {
+		return []string{fmt.Sprintf("lead %d (the input) reads %.2f V, but the [input] model (%s) gives at most %.1f V, even at high mains and light load: "+
+			"the transformer figure looks wrong; check input.secondary_vrms (the other winding, or both halves of a centre-tapped one?)", n, v, desc, hi)}
+	}
+	if r := sc.input.Rectifier; r != nil && vm < sc.input.Peak.V*0.8 {
+		// The lowest trough: low mains, full load, low filter capacitance.
+		low, err := r.At(circuit.Corner{Mains: 1 - sc.input.MainsTol, CapFactor: 1 - FilterCapTolerance, Load: r.Load}).Solve()
+		if err == nil && vm < low.TroughV*0.95 {
+			return []string{fmt.Sprintf("lead %d (the input) reads %.2f V, but the [input] model (%s) never falls below %.1f V, even at low mains and full load: "+
+				"check input.secondary_vrms and input.filter_uf (a dried-out filter capacitor reads low too)", n, v, desc, low.TroughV)}
+		}
+	}
+	return nil
+}
+
+// outputReading returns the magnitude of the regulated rail: a lead wired
+// to the load, else the leader's output lead.
+func outputReading(ev *Evidence, res *Result) (float64, bool) {
+	for _, k := range ev.Leads() {
+		if p, _ := ev.Lead(k); p.WiredTo == WiredLoad && p.Volts.Set {
+			return math.Abs(p.Volts.V), true
+		}
+	}
+	if len(res.Candidates) > 0 && isRegulator(res.Candidates[0].Hypothesis) {
+		v := viewOf(res.Candidates[0].Hypothesis, ev)
+		if v.haveOut {
+			return math.Abs(v.out - v.com), true
+		}
+	}
+	return 0, false
+}
+
+// markingSlip: a marking's voltage code against the measured output.
+func (sc *scene) markingSlip(res *Result) []string {
+	if len(sc.codeVolts) == 0 {
+		return nil
+	}
+	out, ok := outputReading(sc.ev, res)
+	if !ok {
+		return nil
+	}
+	up, _ := lift(sc.ev)
+	lifted := up > 0 || sc.ev.Network != nil
+	for _, want := range sc.codeVolts {
+		d := out - want
+		if math.Abs(d) <= 0.08*want+0.2 || (d > 0 && lifted) {
+			return nil
+		}
+	}
+	return []string{fmt.Sprintf("the marking %q reads as a %s V part but the output measures %.2f V: a misread digit, a lifted ground or a failed part; "+
+		"look at the marking again under a loupe before trusting either", sc.ev.Marking, trimFloat(sc.codeVolts[0]), out)}
+}
+
+// reversedLeads: every reading has one sign while the wiring and outline
+// fit a regulator of the other polarity far better: the meter's leads were
+// probably swapped.
+func (sc *scene) reversedLeads(res *Result) []string {
+	pos, neg := 0, 0
+	for _, x := range measuredLeads(sc.ev) {
+		switch {
+		case x > 0.3:
+			pos++
+		case x < -0.3:
+			neg++
+		}
+	}
+	if (pos > 0) == (neg > 0) || pos+neg < 2 || len(res.Candidates) == 0 {
+		return nil
+	}
+	// Only when nothing explains the readings as they are.
+	if lead := res.Candidates[0]; res.NotInCatalog < lead.Probability && !hasVeto(lead) {
+		return nil
+	}
+	best := map[bool]float64{true: math.Inf(-1), false: math.Inf(-1)}
+	label := map[bool]string{}
+	for _, c := range res.Candidates {
+		if c.Family.NonRegulator() {
+			continue
+		}
+		s, any := 0.0, false
+		for _, r := range c.Reasons {
+			if strings.HasPrefix(r.Evidence, "pins.") || strings.HasPrefix(r.Evidence, "case.") {
+				s += r.Weight
+				any = true
+			}
+		}
+		if any && s > best[c.Family.Negative()] {
+			best[c.Family.Negative()], label[c.Family.Negative()] = s, c.name()
+		}
+	}
+	readNeg := neg > 0
+	if math.IsInf(best[!readNeg], -1) || best[!readNeg] < best[readNeg]+2 {
+		return nil
+	}
+	sign, other := "negative", "positive"
+	if !readNeg {
+		sign, other = "positive", "negative"
+	}
+	return []string{fmt.Sprintf("every lead reads %s, but the wiring fits a %s regulator (%s) far better: "+
+		"check the meter's common lead (black on board ground, red on the lead): swapped leads flip every sign", sign, other, label[!readNeg])}
 }
 
 func weightOf(c Candidate, key string) (float64, bool) {
@@ -75,4 +268,14 @@ func weightOf(c Candidate, key string) (float64, bool) {
 		}
 	}
 	return 0, false
+}
+
+// hasVeto reports whether a candidate carries a near-veto.
+func hasVeto(c Candidate) bool {
+	for _, r := range c.Reasons {
+		if r.Evidence != "prior" && r.Weight <= math.Log(vetoRatio)+1e-9 {
+			return true
+		}
+	}
+	return false
 }

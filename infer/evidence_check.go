@@ -48,6 +48,9 @@ func (e *Evidence) Check(c *catalog.Catalog) error {
 	e.checkInput(k)
 	e.checkOutput(k)
 	e.checkNetwork(k)
+	if b := e.Bench; b != nil {
+		k.nonNeg("bench.dropout_volts", b.DropoutVolts.Set, b.DropoutVolts.V, 50, "V")
+	}
 	if m := e.Mount; m != nil {
 		k.nonNeg("mount.heatsink_c_per_w", m.HeatsinkCPerW.Set, m.HeatsinkCPerW.V, 1000, "°C/W")
 		if ins := insulators(); !ins.ok(m.Insulator) {
@@ -84,10 +87,10 @@ func (e *Evidence) checkOutline(k *checker, c *catalog.Catalog) int {
 		n := *e.Outline.Leads
 		if n < 1 || n > maxLeadsAny {
 			k.add("outline.leads", "leads = %d is impossible; count the leads (1 to %d), not the tab", n, maxLeadsAny)
-		} else if maxLeads == 0 {
+		} else {
+			// A package name whose lead count differs is answered with the
+			// outline measured; identification lists it as a conflict.
 			maxLeads = n
-		} else if n != maxLeads {
-			k.add("outline.leads", "leads = %d but package %s has %d leads; correct one of them", n, e.Package, maxLeads)
 		}
 	}
 	if e.Outline != nil {

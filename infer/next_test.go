@@ -62,14 +62,18 @@ func TestNextNamesEvidenceKeys(t *testing.T) {
 			if ev.Input != nil && ev.Input.Rectifier.DC() && m.Key == "input.trough_volts" {
 				t.Errorf("%s: a ripple trough asked of a DC supply", name)
 			}
-			if o := c.Outline(ev.Package); o != nil && strings.HasPrefix(m.Key, "pins.") {
+			o := c.Outline(ev.Package)
+			if ev.Outline != nil && ev.Outline.Leads != nil {
+				o = nil // the measured outline rules a package name that disagrees
+			}
+			if o != nil && strings.HasPrefix(m.Key, "pins.") {
 				var n int
 				fmt.Sscanf(strings.TrimPrefix(m.Key, "pins."), "%d", &n)
 				if n > o.Leads {
 					t.Errorf("%s: asks %s of a %d-lead %s", name, m.Key, o.Leads, o.Name)
 				}
 			}
-			if o := c.Outline(ev.Package); o != nil && m.Key == "case.tied_to_pin" && !o.Tab && !o.MetalCan {
+			if o != nil && m.Key == "case.tied_to_pin" && !o.Tab && !o.MetalCan {
 				t.Errorf("%s: asks the tab of a %s", name, o.Name)
 			}
 			// The answer, set at its key, must load.

@@ -57,9 +57,10 @@ const (
 	WiredGround      Wiring = "ground"      // board ground
 	WiredNetwork     Wiring = "network"     // resistors, a zener, diodes or a trimmer
 	WiredOpen        Wiring = "open"        // nothing
+	WiredInductor    Wiring = "inductor"    // a coil: a switching regulator's switch node drives one
 )
 
-var wirings = vocab[Wiring]{"wired_to", []Wiring{WiredUnregulated, WiredLoad, WiredGround, WiredNetwork, WiredOpen}}
+var wirings = vocab[Wiring]{"wired_to", []Wiring{WiredUnregulated, WiredLoad, WiredGround, WiredNetwork, WiredOpen, WiredInductor}}
 
 // Wirings returns the wiring words in their usual order.
 func Wirings() []Wiring { return append([]Wiring(nil), wirings.words...) }

@@ -60,7 +60,7 @@ func TestTable(t *testing.T) {
 		want  string
 	}{
 		{80, "ID    CURRENT  TITLE\n78xx      1 A  positive fixed three-terminal regulator\n317     1.5 A  positive adjustable\n"},
-		{30, "ID    CURRENT  TITLE\n78xx      1 A  positive fixed\n               three-terminal\n               regulator\n317     1.5 A  positive\n               adjustable\n"},
+		{30, "ID    CURRENT\n78xx      1 A\n    positive fixed\n    three-terminal regulator\n317     1.5 A\n    positive adjustable\n"},
 		{20, "ID    CURRENT\n78xx      1 A\n    positive fixed\n    three-terminal\n    regulator\n317     1.5 A\n    positive\n    adjustable\n"},
 		{10, "id: 78xx\ncurrent:\n  1 A\ntitle:\n  positive\n  fixed\n  three-te\n  rminal\n  regulato\n  r\n\nid: 317\ncurrent:\n  1.5 A\ntitle:\n  positive\n  adjustab\n  le\n"},
 	}

@@ -74,9 +74,14 @@ func (t *Table) natural(i int) int {
 	return n
 }
 
+// minUnder is the narrowest an Under column is made before it moves under
+// its row instead.
+const minUnder = 24
+
 // layout returns column widths that fit width using the columns in use,
-// and whether it succeeded.
-func (t *Table) layout(width int, use []bool) ([]int, bool) {
+// narrowing the columns shrink allows (each down to its floor), and
+// whether it succeeded.
+func (t *Table) layout(width int, use []bool, shrink func(Column) int) ([]int, bool) {
 	ws := make([]int, len(t.Columns))
 	total := -gap
 	for i := range t.Columns {
@@ -87,10 +92,10 @@ func (t *Table) layout(width int, use []bool) ([]int, bool) {
 		total += ws[i] + gap
 	}
 	for total > width {
-		// Narrow the widest wrapping column that can still give.
+		// Narrow the widest column that can still give.
 		best := -1
 		for i, c := range t.Columns {
-			if use[i] && c.Wrap && ws[i] > max(minWrap, 1) && (best < 0 || ws[i] > ws[best]) {
+			if floor := shrink(c); use[i] && floor > 0 && ws[i] > floor && (best < 0 || ws[i] > ws[best]) {
 				best = i
 			}
 		}
@@ -103,21 +108,33 @@ func (t *Table) layout(width int, use []bool) ([]int, bool) {
 	return ws, true
 }
 
-// Write writes the table fitted to width columns.
+// Write writes the table fitted to width columns: first by narrowing the
+// Under columns (down to minUnder), then by moving them under their rows
+// and narrowing the other wrapping columns, then as "header: value" lines.
 func (t *Table) Write(w io.Writer, width int) error {
 	use := make([]bool, len(t.Columns))
 	for i := range use {
 		use[i] = true
 	}
-	ws, ok := t.layout(width, use)
 	under := make([]bool, len(t.Columns))
+	ws, ok := t.layout(width, use, func(c Column) int {
+		if c.Wrap && c.Under {
+			return minUnder
+		}
+		return 0
+	})
 	if !ok {
 		for i, c := range t.Columns {
 			if c.Under {
 				use[i], under[i] = false, true
 			}
 		}
-		ws, ok = t.layout(width, use)
+		ws, ok = t.layout(width, use, func(c Column) int {
+			if c.Wrap {
+				return minWrap
+			}
+			return 0
+		})
 	}
 	if !ok {
 		return t.writeStacked(w, width)

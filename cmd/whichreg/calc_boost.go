@@ -6,6 +6,7 @@ import (
 
 	"github.com/spf13/cobra"
 	"github.com/whichreg/whichreg/infer/circuit"
+	"github.com/whichreg/whichreg/report"
 )
 
 type calcBoostOptions struct {
@@ -37,14 +38,31 @@ rises. Give the input at its lowest (ripple trough, low mains) and highest
 		},
 	}
 	addFormatFlag(cmd, &opts.Format, "text", "json")
-	addQuantity(cmd, &opts.R, "r", "Ω", 0, "bypass resistor")
+	addQuantity(cmd, &opts.R, "r", "Ω", 0, "bypass resistor (also --bypass-ohms, as the evidence key bypass.ohms)")
 	addQuantity(cmd, &opts.VinMin, "vin-min", "V", 0, "lowest regulator input")
 	addQuantity(cmd, &opts.VinMax, "vin-max", "V", 0, "highest regulator input")
 	addQuantity(cmd, &opts.Vout, "vout", "V", 0, "regulated output")
 	addQuantity(cmd, &opts.LoadMin, "load-min", "A", 0, "lightest load")
 	addQuantity(cmd, &opts.LoadMax, "load-max", "A", 0, "heaviest load")
 	addQuantity(cmd, &opts.RegMin, "reg-min", "A", 0, "the regulator's own minimum load (adjustables: 10m)")
+	flagAliases(cmd, map[string]string{"bypass-ohms": "r"})
 	return cmd
+}
+
+// calcBoostDoc is the JSON document of `calc boost`.
+type calcBoostDoc struct {
+	Schema         string  `json:"schema"`
+	ROhm           float64 `json:"r_ohm"`
+	ResistorMinA   float64 `json:"resistor_min_a"`
+	ResistorMaxA   float64 `json:"resistor_max_a"`
+	ResistorMaxW   float64 `json:"resistor_max_w"`
+	RegulatorMaxA  float64 `json:"regulator_max_a"`
+	RegulatorMinA  float64 `json:"regulator_min_a"`
+	MinLoadA       float64 `json:"min_load_a"`
+	RegulatesLight bool    `json:"regulates_light"`
+	// OutputRiseToV is where the output rises at the lightest load; null
+	// when the load keeps regulation.
+	OutputRiseToV *float64 `json:"output_rise_to_v"`
 }
 
 func calcBoostRun(o *calcBoostOptions) error {
@@ -55,16 +73,30 @@ func calcBoostRun(o *calcBoostOptions) error {
 	}
 	out := o.app.IO.Out
 	if o.Format == "json" {
-		return writeJSON(out, r)
+		s := report.Sig
+		d := calcBoostDoc{Schema: report.Schema("calc-boost"), ROhm: o.R, ResistorMinA: s(r.ResistorMinA), ResistorMaxA: s(r.ResistorMaxA),
+			ResistorMaxW: s(r.ResistorMaxW), RegulatorMaxA: s(r.RegulatorMaxA), RegulatorMinA: s(r.RegulatorMinA), MinLoadA: s(r.MinLoadA),
+			RegulatesLight: r.RegulatesLight}
+		if !r.RegulatesLight {
+			d.OutputRiseToV = finite(report.Sig(r.OutputRiseToV), 6)
+		}
+		return writeJSON(out, d)
 	}
-	fmt.Fprintf(out, "resistor current %.3f A at %g V in, %.3f A at %g V in\n", r.ResistorMinA, o.VinMin, r.ResistorMaxA, o.VinMax)
-	fmt.Fprintf(out, "resistor dissipation up to %.2f W: use a part rated at least %.0f W\n", r.ResistorMaxW, math.Ceil(2*r.ResistorMaxW))
-	fmt.Fprintf(out, "regulator current up to %.3f A (full load, lowest input)\n", r.RegulatorMaxA)
-	fmt.Fprintf(out, "minimum load for regulation %.3f A (highest input)\n", r.MinLoadA)
+	width := o.app.Width()
+	a, v := func(x float64) string { return report.Num(x, "A") }, func(x float64) string { return report.Num(x, "V") }
+	lines := []string{
+		fmt.Sprintf("resistor current %s at %s in, %s at %s in", a(r.ResistorMinA), v(o.VinMin), a(r.ResistorMaxA), v(o.VinMax)),
+		fmt.Sprintf("resistor dissipation up to %s: use a part rated at least %s", report.Num(r.ResistorMaxW, "W"), report.Num(math.Ceil(2*r.ResistorMaxW), "W")),
+		fmt.Sprintf("regulator current up to %s (full load, lowest input)", a(r.RegulatorMaxA)),
+		fmt.Sprintf("minimum load for regulation %s (highest input)", a(r.MinLoadA)),
+	}
 	if r.RegulatesLight {
-		fmt.Fprintf(out, "the lightest load %.3f A keeps regulation\n", o.LoadMin)
+		lines = append(lines, fmt.Sprintf("the lightest load %s keeps regulation", a(o.LoadMin)))
 	} else {
-		fmt.Fprintf(out, "the lightest load %.3f A is below it: the output rises toward %.2f V\n", o.LoadMin, r.OutputRiseToV)
+		lines = append(lines, fmt.Sprintf("the lightest load %s is below it: the output rises toward %s", a(o.LoadMin), v(r.OutputRiseToV)))
+	}
+	for _, l := range lines {
+		report.Fill(out, l, width, "", "  ")
 	}
 	return nil
 }

@@ -5,7 +5,7 @@ import (
 
 	"github.com/spf13/cobra"
 	"github.com/whichreg/whichreg/infer/circuit"
-	"github.com/whichreg/whichreg/internal/units"
+	"github.com/whichreg/whichreg/report"
 )
 
 type calcDividerOptions struct {
@@ -51,12 +51,38 @@ series with the divider current at least --min-load.`,
 	addQuantity(cmd, &opts.Iadj, "iadj", "A", 50e-6, "typical ADJ or ground-lead current")
 	addQuantity(cmd, &opts.IadjMax, "iadj-max", "A", 100e-6, "greatest ADJ or ground-lead current")
 	addQuantity(cmd, &opts.MinLoad, "min-load", "A", 0, "least divider current (the part's minimum load)")
-	addQuantity(cmd, &opts.Bottom, "bottom", "V", 0, "rail the bottom resistor returns to")
-	addQuantity(cmd, &opts.R1, "r1", "Ω", 0, "output to ADJ/common")
-	addQuantity(cmd, &opts.R2, "r2", "Ω", 0, "ADJ/common to the return rail")
+	addQuantity(cmd, &opts.Bottom, "bottom", "V", 0, "rail the bottom resistor returns to (also --bottom-to-volts)")
+	addQuantity(cmd, &opts.R1, "r1", "Ω", 0, "output to ADJ/common (also --r-top-ohms, as the evidence key network.r_top_ohms)")
+	addQuantity(cmd, &opts.R2, "r2", "Ω", 0, "ADJ/common to the return rail (also --r-bottom-ohms)")
 	opts.Series = "E24"
 	addEnumFlag(cmd, &opts.Series, "series", "IEC 60063 series", "E12", "E24", "E48", "E96")
+	flagAliases(cmd, map[string]string{"r-top-ohms": "r1", "r-bottom-ohms": "r2", "bottom-to-volts": "bottom"})
 	return cmd
+}
+
+// calcDividerDoc is the JSON document of `calc divider`: the pair chosen
+// from a series (series and error_v set) or the pair given (both null).
+type calcDividerDoc struct {
+	Schema      string   `json:"schema"`
+	Series      *string  `json:"series"`
+	R1Ohm       float64  `json:"r1_ohm"`
+	R2Ohm       float64  `json:"r2_ohm"`
+	VoutV       float64  `json:"vout_v"`
+	ErrorV      *float64 `json:"error_v"`
+	SpreadLowV  float64  `json:"spread_low_v"`
+	SpreadHighV float64  `json:"spread_high_v"`
+	DividerA    float64  `json:"divider_a"`
+}
+
+func dividerDocOf(c circuit.DividerChoice, series string, chosen bool) calcDividerDoc {
+	s := report.Sig
+	d := calcDividerDoc{Schema: report.Schema("calc-divider"), R1Ohm: c.R1Ohm, R2Ohm: c.R2Ohm, VoutV: s(c.VoutV),
+		SpreadLowV: s(c.SpreadLowV), SpreadHighV: s(c.SpreadHighV), DividerA: s(c.DividerA)}
+	if chosen {
+		d.Series = &series
+		d.ErrorV = finite(s(c.ErrorV), 9)
+	}
+	return d
 }
 
 func calcDividerRun(o *calcDividerOptions) error {
@@ -70,10 +96,11 @@ func calcDividerRun(o *calcDividerOptions) error {
 		hi, _ := circuit.DividerVout(o.Vref, o.IadjMax, o.R1, o.R2, o.Bottom)
 		c := circuit.DividerChoice{R1Ohm: o.R1, R2Ohm: o.R2, VoutV: v, SpreadLowV: lo, SpreadHighV: hi, DividerA: o.Vref / o.R1}
 		if o.Format == "json" {
-			return writeJSON(out, c)
+			return writeJSON(out, dividerDocOf(c, "", false))
 		}
-		fmt.Fprintf(out, "R1 %s, R2 %s: output %.3f V (%.3f to %.3f V as the lead current goes 0 to %s); divider current %s\n",
-			units.Format(o.R1, "Ω"), units.Format(o.R2, "Ω"), v, lo, hi, units.Format(o.IadjMax, "A"), units.Format(c.DividerA, "A"))
+		report.Fill(out, fmt.Sprintf("R1 %s, R2 %s: output %s (%s to %s as the lead current goes 0 to %s); divider current %s",
+			report.Num(o.R1, "Ω"), report.Num(o.R2, "Ω"), report.Num(v, "V"), report.Num(lo, "V"), report.Num(hi, "V"),
+			report.Num(o.IadjMax, "A"), report.Num(c.DividerA, "A")), o.app.Width(), "", "  ")
 		return nil
 	}
 	series, err := circuit.Series(o.Series)
@@ -86,10 +113,12 @@ func calcDividerRun(o *calcDividerOptions) error {
 		return inputError(err)
 	}
 	if o.Format == "json" {
-		return writeJSON(out, c)
+		return writeJSON(out, dividerDocOf(c, o.Series, true))
 	}
-	fmt.Fprintf(out, "%s: R1 %s (output to ADJ/common), R2 %s (to the return rail)\n", o.Series, units.Format(c.R1Ohm, "Ω"), units.Format(c.R2Ohm, "Ω"))
-	fmt.Fprintf(out, "output %.3f V (error %+.3f V); %.3f to %.3f V over the lead-current spread; divider current %s\n",
-		c.VoutV, c.ErrorV, c.SpreadLowV, c.SpreadHighV, units.Format(c.DividerA, "A"))
+	width := o.app.Width()
+	report.Fill(out, fmt.Sprintf("%s: R1 %s (output to ADJ/common), R2 %s (to the return rail)", o.Series, report.Num(c.R1Ohm, "Ω"), report.Num(c.R2Ohm, "Ω")), width, "", "  ")
+	report.Fill(out, fmt.Sprintf("output %s (error %s); %s to %s over the lead-current spread; divider current %s",
+		report.Num(c.VoutV, "V"), report.Signed(c.ErrorV, "V"), report.Num(c.SpreadLowV, "V"), report.Num(c.SpreadHighV, "V"),
+		report.Num(c.DividerA, "A")), width, "", "  ")
 	return nil
 }

@@ -6,6 +6,7 @@ import (
 
 	"github.com/spf13/cobra"
 	"github.com/whichreg/whichreg/infer/circuit"
+	"github.com/whichreg/whichreg/report"
 )
 
 type calcHeatsinkOptions struct {
@@ -47,26 +48,33 @@ that keeps the junction at --tj. --theta-ja gives the free-air temperature.`,
 	addQuantity(cmd, &opts.Vout, "vout", "V", 0, "regulator output")
 	addQuantity(cmd, &opts.Load, "load", "A", 0, "output current")
 	addQuantity(cmd, &opts.Ignd, "ignd", "A", 0, "ground-lead current")
-	addQuantity(cmd, &opts.Ambient, "ambient", "°C", 40, "ambient temperature around the heat sink")
-	addQuantity(cmd, &opts.Tj, "tj", "°C", 125, "junction temperature limit")
+	addQuantity(cmd, &opts.Ambient, "ambient", "°C", 40, "ambient temperature around the heat sink (also --ambient-c)")
+	addQuantity(cmd, &opts.Tj, "tj", "°C", 125, "junction temperature limit (also --tj-max-c, as the catalog key tj_max_c)")
 	addQuantity(cmd, &opts.ThetaJC, "theta-jc", "C/W", 5, "junction to case")
 	addQuantity(cmd, &opts.ThetaCS, "theta-cs", "C/W", 0, "case to sink (instead of --insulator)")
-	addQuantity(cmd, &opts.ThetaSA, "theta-sa", "C/W", 0, "sink to air")
+	addQuantity(cmd, &opts.ThetaSA, "theta-sa", "C/W", 0, "sink to air (also --heatsink-c-per-w, as the evidence key mount.heatsink_c_per_w)")
 	addQuantity(cmd, &opts.ThetaJA, "theta-ja", "C/W", 0, "junction to air with no heat sink")
 	opts.Insulator = "none"
 	addEnumFlag(cmd, &opts.Insulator, "insulator", "interface between case and sink", circuit.Insulators()...)
 	cmd.Flags().BoolVar(&opts.LargeCan, "large-can", false, "the case is a TO-3 or TO-66 can (lower θCS)")
+	flagAliases(cmd, map[string]string{"heatsink-c-per-w": "theta-sa", "ambient-c": "ambient", "tj-max-c": "tj"})
 	return cmd
 }
 
-// heatsinkJSON is the JSON of `calc heatsink`.
-type heatsinkJSON struct {
-	PowerW          float64  `json:"power_w"`
-	ThetaCS         float64  `json:"theta_cs"`
-	JunctionC       *float64 `json:"junction_c,omitempty"`
-	FreeAirC        *float64 `json:"free_air_c,omitempty"`
-	RequiredThetaSA *float64 `json:"required_theta_sa,omitempty"`
-	TjLimitC        float64  `json:"tj_limit_c"`
+// calcHeatsinkDoc is the JSON document of `calc heatsink`; what was not
+// asked for is null.
+type calcHeatsinkDoc struct {
+	Schema               string   `json:"schema"`
+	PowerW               float64  `json:"power_w"`
+	AmbientC             float64  `json:"ambient_c"`
+	ThetaJCCPerW         float64  `json:"theta_jc_c_per_w"`
+	ThetaCSCPerW         float64  `json:"theta_cs_c_per_w"`
+	ThetaSACPerW         *float64 `json:"theta_sa_c_per_w"`
+	JunctionC            *float64 `json:"junction_c"`
+	RequiredThetaSACPerW *float64 `json:"required_theta_sa_c_per_w"`
+	ThetaJACPerW         *float64 `json:"theta_ja_c_per_w"`
+	FreeAirJunctionC     *float64 `json:"free_air_junction_c"`
+	TjLimitC             float64  `json:"tj_limit_c"`
 }
 
 func calcHeatsinkRun(o *calcHeatsinkOptions) error {
@@ -75,7 +83,7 @@ func calcHeatsinkRun(o *calcHeatsinkOptions) error {
 		p = circuit.RegulatorDissipation(math.Abs(o.Vin), math.Abs(o.Vout), o.Load, o.Ignd)
 	}
 	if p < 0 || math.IsNaN(p) {
-		return inputError(fmt.Errorf("dissipation %g W is impossible", p))
+		return inputError(fmt.Errorf("dissipation %s is impossible", report.Num(p, "W")))
 	}
 	cs := o.ThetaCS
 	if !o.csSet {
@@ -84,40 +92,46 @@ func calcHeatsinkRun(o *calcHeatsinkOptions) error {
 			return inputError(err)
 		}
 	}
-	res := heatsinkJSON{PowerW: p, ThetaCS: cs, TjLimitC: o.Tj}
+	d := calcHeatsinkDoc{Schema: report.Schema("calc-heatsink"), PowerW: report.Sig(p), AmbientC: o.Ambient, ThetaJCCPerW: o.ThetaJC,
+		ThetaCSCPerW: cs, TjLimitC: o.Tj}
 	if o.saSet {
-		tj := circuit.JunctionTemp(p, o.Ambient, o.ThetaJC, cs, o.ThetaSA)
-		res.JunctionC = &tj
+		d.ThetaSACPerW = finite(o.ThetaSA, 6)
+		d.JunctionC = finite(circuit.JunctionTemp(p, o.Ambient, o.ThetaJC, cs, o.ThetaSA), 3)
 	} else if p > 0 {
 		sa, _ := circuit.RequiredThetaSA(p, o.Ambient, o.Tj, o.ThetaJC, cs)
-		res.RequiredThetaSA = &sa
+		d.RequiredThetaSACPerW = finite(sa, 4)
 	}
 	if o.jaSet {
-		fa := circuit.FreeAirTemp(p, o.Ambient, o.ThetaJA)
-		res.FreeAirC = &fa
+		d.ThetaJACPerW = finite(o.ThetaJA, 6)
+		d.FreeAirJunctionC = finite(circuit.FreeAirTemp(p, o.Ambient, o.ThetaJA), 3)
 	}
 	out := o.app.IO.Out
 	if o.Format == "json" {
-		return writeJSON(out, res)
+		return writeJSON(out, d)
 	}
-	fmt.Fprintf(out, "dissipation %.2f W; θJC %g + θCS %g (%s) °C/W; ambient %g °C\n", p, o.ThetaJC, cs, o.Insulator, o.Ambient)
-	if res.JunctionC != nil {
+	width := o.app.Width()
+	c, cw := func(x float64) string { return report.Num(x, "°C") }, func(x float64) string { return report.Num(x, "°C/W") }
+	lines := []string{fmt.Sprintf("dissipation %s; θJC %s + θCS %s (%s); ambient %s", report.Num(p, "W"), cw(o.ThetaJC), cw(cs), o.Insulator, c(o.Ambient))}
+	if d.JunctionC != nil {
 		verdict := "within"
-		if *res.JunctionC > o.Tj {
+		if *d.JunctionC > o.Tj {
 			verdict = "ABOVE"
 		}
-		fmt.Fprintf(out, "junction %.1f °C with θSA %g °C/W: %s the %g °C limit\n", *res.JunctionC, o.ThetaSA, verdict, o.Tj)
+		lines = append(lines, fmt.Sprintf("junction %s with θSA %s: %s the %s limit", c(*d.JunctionC), cw(o.ThetaSA), verdict, c(o.Tj)))
 	}
-	if res.RequiredThetaSA != nil {
-		if *res.RequiredThetaSA <= 0 {
-			fmt.Fprintf(out, "no heat sink can hold the junction at %g °C: reduce the dissipation\n", o.Tj)
+	if d.RequiredThetaSACPerW != nil {
+		if *d.RequiredThetaSACPerW <= 0 {
+			lines = append(lines, fmt.Sprintf("no heat sink can hold the junction at %s: reduce the dissipation", c(o.Tj)))
 		} else {
-			fmt.Fprintf(out, "heat sink needed: θSA at most %.2f °C/W for a %g °C junction\n", *res.RequiredThetaSA, o.Tj)
+			lines = append(lines, fmt.Sprintf("heat sink needed: θSA at most %s for a %s junction", cw(*d.RequiredThetaSACPerW), c(o.Tj)))
 		}
 	}
-	if res.FreeAirC != nil {
-		fmt.Fprintf(out, "in free air (θJA %g °C/W): junction %.1f °C\n", o.ThetaJA, *res.FreeAirC)
+	if d.FreeAirJunctionC != nil {
+		lines = append(lines, fmt.Sprintf("in free air (θJA %s): junction %s", cw(o.ThetaJA), c(*d.FreeAirJunctionC)))
 	}
-	fmt.Fprintln(out, "caution: heat sinks and regulators at these temperatures burn; let them cool before touching")
+	lines = append(lines, "caution: heat sinks and regulators at these temperatures burn; let them cool before touching")
+	for _, l := range lines {
+		report.Fill(out, l, width, "", "  ")
+	}
 	return nil
 }

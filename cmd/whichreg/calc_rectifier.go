@@ -5,9 +5,8 @@ import (
 	"io"
 
 	"github.com/spf13/cobra"
-	"github.com/whichreg/whichreg/infer"
 	"github.com/whichreg/whichreg/infer/circuit"
-	"github.com/whichreg/whichreg/internal/units"
+	"github.com/whichreg/whichreg/report"
 )
 
 type calcRectifierOptions struct {
@@ -33,7 +32,7 @@ func newCalcRectifierCmd(app *App, runF func(*calcRectifierOptions) error) *cobr
 	opts := &calcRectifierOptions{app: app}
 	cmd := &cobra.Command{
 		Use:   "rectifier",
-		Short: "Simulate a rectifier and filter capacitor to its steady state, with mains and load corners",
+		Short: "Simulate a rectifier and filter capacitor, with mains and load corners",
 		Long: `rectifier simulates the transformer secondary, rectifier diodes (1N4007 model),
 filter capacitor and load to the periodic steady state, at nominal mains and at
 every corner (mains low/high, load min/max, capacitor nominal/low).
@@ -57,8 +56,18 @@ With --spice it prints an ngspice netlist of the nominal case instead.`,
 			if cmd.Flags().Changed("load") == cmd.Flags().Changed("rload") {
 				return flagErrorf("give the load as --load AMPS (a regulator) or --rload OHMS (a resistor), one of them")
 			}
-			if err := requireFlags(cmd, "vrms", "cap"); err != nil {
+			if cmd.Flags().Changed("cap") && cmd.Flags().Changed("filter-uf") {
+				return flagErrorf("give --cap or --filter-uf, not both")
+			}
+			if !cmd.Flags().Changed("filter-uf") {
+				if err := requireFlags(cmd, "vrms", "cap"); err != nil {
+					return err
+				}
+			} else if err := requireFlags(cmd, "vrms"); err != nil {
 				return err
+			}
+			if opts.Spice && opts.Format != "text" {
+				return flagErrorf("--spice prints a netlist: it has no --format %s", opts.Format)
 			}
 			if runF != nil {
 				return runF(opts)
@@ -69,34 +78,36 @@ With --spice it prints an ngspice netlist of the nominal case instead.`,
 	addFormatFlag(cmd, &opts.Format, "text", "json")
 	opts.Rectifier = "bridge"
 	addEnumFlag(cmd, &opts.Rectifier, "rectifier", "rectifier", "bridge", "center-tap", "half-wave")
-	addQuantity(cmd, &opts.Vrms, "vrms", "V", 0, "secondary voltage, V RMS, measured at the load (per half for center-tap)")
-	addQuantity(cmd, &opts.Hz, "hz", "Hz", 50, "mains frequency")
-	addQuantity(cmd, &opts.Cap, "cap", "F", 0, "filter capacitance, e.g. 2200u")
+	addQuantity(cmd, &opts.Vrms, "vrms", "V", 0, "secondary voltage, V RMS, measured at the load (per half for center-tap; also --secondary-vrms)")
+	addQuantity(cmd, &opts.Hz, "hz", "Hz", 50, "mains frequency (also --mains-hz)")
+	cmd.Flags().Var(&capFlag{quantityFlag{value: &opts.Cap, unit: "F"}}, "cap", "filter capacitance with its unit or prefix: 2200u, 2200uF, 2200 µF, 2m2")
+	cmd.Flags().Var(&microFlag{value: &opts.Cap, unit: "F"}, "filter-uf", "filter capacitance in µF, as the evidence key input.filter_uf (instead of --cap)")
 	addQuantity(cmd, &opts.ESR, "esr", "Ω", 0, "filter capacitor ESR")
-	addQuantity(cmd, &opts.Load, "load", "A", 0, "load current (a regulator's load is a constant current)")
+	addQuantity(cmd, &opts.Load, "load", "A", 0, "load current (a regulator's load is a constant current; also --amps)")
 	addQuantity(cmd, &opts.RLoad, "rload", "Ω", 0, "load resistance")
-	addQuantity(cmd, &opts.MinLoad, "min-load", "A", 0, "lightest load for the corners (with --load)")
-	addQuantity(cmd, &opts.Regulation, "regulation", "", 0.10, "transformer regulation, fraction (no-load rise over loaded voltage)")
+	addQuantity(cmd, &opts.MinLoad, "min-load", "A", 0, "lightest load for the corners, with --load (also --min-amps)")
+	addQuantity(cmd, &opts.Regulation, "regulation", "", 0.10, "transformer regulation, fraction: no-load rise over loaded voltage (also --secondary-regulation)")
 	addQuantity(cmd, &opts.Rs, "rs", "Ω", 0, "winding resistance per conducting path instead of --regulation")
 	addQuantity(cmd, &opts.MainsTol, "mains-tolerance", "", 0.10, "mains tolerance either way, fraction (IEC 60038: 0.10)")
 	addQuantity(cmd, &opts.CapTol, "cap-tolerance", "", 0.20, "capacitor tolerance downward, fraction")
-	cmd.Flags().BoolVar(&opts.Spice, "spice", false, "print an ngspice netlist of the nominal case instead")
+	cmd.Flags().BoolVar(&opts.Spice, "spice", false, "print an ngspice netlist of the nominal case instead (text only)")
+	flagAliases(cmd, map[string]string{"secondary-vrms": "vrms", "mains-hz": "hz", "amps": "load", "min-amps": "min-load",
+		"secondary-regulation": "regulation"})
 	return cmd
 }
 
-// rectifierJSON is the JSON contract of `calc rectifier` (DESIGN.md).
-type rectifierJSON struct {
-	Rectifier     string               `json:"rectifier"`
-	EMFVrms       float64              `json:"emf_vrms"`
-	SourceOhm     float64              `json:"source_ohm"`
-	PeakV         float64              `json:"peak_v"`
-	TroughV       float64              `json:"trough_v"`
-	MeanV         float64              `json:"mean_v"`
-	RippleVpp     float64              `json:"ripple_vpp"`
-	CapRippleARMS float64              `json:"cap_ripple_a_rms"`
-	DiodePeakA    float64              `json:"diode_peak_a"`
-	ConductionDeg float64              `json:"conduction_deg"`
-	Corners       circuit.CornerResult `json:"corners"`
+// calcRectifierDoc is the JSON document of `calc rectifier` (DESIGN.md
+// contract: the nominal figures at the top, the corners under corners).
+type calcRectifierDoc struct {
+	Schema    string  `json:"schema"`
+	Rectifier string  `json:"rectifier"`
+	EMFVrms   float64 `json:"emf_v_rms"`
+	SourceOhm float64 `json:"source_ohm"`
+	Hz        float64 `json:"hz"`
+	CapF      float64 `json:"cap_f"`
+	ESROhm    float64 `json:"esr_ohm"`
+	resultDoc
+	Corners *cornersDoc `json:"corners"`
 }
 
 func (o *calcRectifierOptions) circuit() (circuit.Rectifier, circuit.Load, error) {
@@ -116,7 +127,7 @@ func (o *calcRectifierOptions) circuit() (circuit.Rectifier, circuit.Load, error
 			return circuit.Rectifier{}, load, inputError(fmt.Errorf("--regulation: %v", err), "give --rs OHMS instead")
 		}
 	}
-	return circuit.Rectifier{Topology: top, VrmsV: emf, Hz: o.Hz, CapF: o.Cap, ESROhm: o.ESR, SourceOhm: rs, Load: load}, load, nil
+	return circuit.Rectifier{Topology: top, VrmsV: emf, Hz: o.Hz, CapF: report.Sig(o.Cap), ESROhm: o.ESR, SourceOhm: rs, Load: load}, load, nil
 }
 
 func calcRectifierRun(o *calcRectifierOptions) error {
@@ -146,36 +157,39 @@ func calcRectifierRun(o *calcRectifierOptions) error {
 		return inputError(err)
 	}
 	if o.Format == "json" {
-		res = roundResult(res)
-		rc := roundConditions(infer.Conditions{Corners: &cr}).Corners
-		return writeJSON(out, rectifierJSON{o.Rectifier, sig(r.VrmsV), sig(r.SourceOhm), res.PeakV, res.TroughV, res.MeanV, res.RippleVpp,
-			res.CapRippleARMS, res.DiodePeakA, res.ConductionDeg, *rc})
+		return writeJSON(out, calcRectifierDoc{Schema: report.Schema("calc-rectifier"), Rectifier: o.Rectifier, EMFVrms: report.Sig(r.VrmsV),
+			SourceOhm: report.Sig(r.SourceOhm), Hz: o.Hz, CapF: report.Sig(o.Cap), ESROhm: o.ESR, resultDoc: resultDocOf(res), Corners: cornersDocOf(&cr)})
 	}
-	fmt.Fprintf(out, "%s rectifier, %s secondary EMF behind %s, %g Hz, %s filter",
-		o.Rectifier, units.Format(r.VrmsV, "V rms"), units.Format(r.SourceOhm, "Ω"), o.Hz, units.Format(o.Cap, "F"))
+	width := o.app.Width()
+	n, v := report.Num, func(x float64) string { return report.Num(x, "V") }
+	head := fmt.Sprintf("%s rectifier, %s secondary EMF behind %s, %s, %s filter", o.Rectifier, n(r.VrmsV, "V rms"),
+		n(r.SourceOhm, "Ω"), n(o.Hz, "Hz"), n(o.Cap, "F"))
 	if o.ESR > 0 {
-		fmt.Fprintf(out, " (ESR %s)", units.Format(o.ESR, "Ω"))
+		head += " (ESR " + n(o.ESR, "Ω") + ")"
 	}
-	fmt.Fprintln(out)
-	fmt.Fprintf(out, "nominal mains and load (%s):\n", loadText(load))
-	fmt.Fprintf(out, "  peak %.3f V   trough %.3f V   mean %.3f V   ripple %.3f V p-p\n", res.PeakV, res.TroughV, res.MeanV, res.RippleVpp)
-	fmt.Fprintf(out, "  capacitor ripple current %.3f A rms   diode peak %.3f A   conduction %.1f° per diode\n",
-		res.CapRippleARMS, res.DiodePeakA, res.ConductionDeg)
-	fmt.Fprintf(out, "corners (mains ±%g %%, capacitor −%g %%):\n", o.MainsTol*100, o.CapTol*100)
+	report.Fill(out, head, width, "", "  ")
+	report.Fill(out, fmt.Sprintf("nominal mains and load (%s):", loadText(load)), width, "", "  ")
+	report.Fill(out, fmt.Sprintf("peak %s, trough %s, mean %s, ripple %s; capacitor ripple current %s; diode peak %s; conduction %.1f° per diode",
+		v(res.PeakV), v(res.TroughV), v(res.MeanV), n(res.RippleVpp, "V p-p"), n(res.CapRippleARMS, "A rms"), n(res.DiodePeakA, "A"), res.ConductionDeg),
+		width, "  ", "  ")
+	report.Fill(out, fmt.Sprintf("corners (mains ±%s; \"low C\" is the filter capacitor %s below its value):", report.Percent(o.MainsTol), report.Percent(o.CapTol)), width, "", "  ")
+	t := &report.Table{Columns: []report.Column{{Header: "  corner", Wrap: true}, {Header: "peak", Align: report.Right},
+		{Header: "trough", Align: report.Right}, {Header: "mean", Align: report.Right}}}
 	for _, c := range cr.Corners {
-		fmt.Fprintf(out, "  %-36s peak %7.3f V  trough %7.3f V  mean %7.3f V\n", c.Name, c.Result.PeakV, c.Result.TroughV, c.Result.MeanV)
+		t.Row("  "+c.Name, v(c.Result.PeakV), v(c.Result.TroughV), v(c.Result.MeanV))
 	}
-	fmt.Fprintf(out, "worst trough %.3f V (%s): the regulator's input must stay above Vout + dropout here\n", cr.WorstTrough.Result.TroughV, cr.WorstTrough.Name)
-	fmt.Fprintf(out, "worst peak   %.3f V (%s): the regulator's input maximum must exceed this\n", cr.WorstPeak.Result.PeakV, cr.WorstPeak.Name)
+	_ = t.Write(out, width)
+	report.Fill(out, fmt.Sprintf("worst trough %s (%s): the regulator's input must stay above Vout + dropout here", v(cr.WorstTrough.Result.TroughV), cr.WorstTrough.Name), width, "", "  ")
+	report.Fill(out, fmt.Sprintf("worst peak %s (%s): the regulator's input maximum must exceed this", v(cr.WorstPeak.Result.PeakV), cr.WorstPeak.Name), width, "", "  ")
 	return nil
 }
 
 func loadText(l circuit.Load) string {
 	switch {
 	case l.Amps > 0:
-		return units.Format(l.Amps, "A") + " constant"
+		return report.Num(l.Amps, "A") + " constant"
 	case l.Ohms > 0:
-		return units.Format(l.Ohms, "Ω")
+		return report.Num(l.Ohms, "Ω")
 	}
 	return "no load"
 }

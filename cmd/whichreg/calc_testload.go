@@ -6,7 +6,7 @@ import (
 
 	"github.com/spf13/cobra"
 	"github.com/whichreg/whichreg/infer/circuit"
-	"github.com/whichreg/whichreg/internal/units"
+	"github.com/whichreg/whichreg/report"
 )
 
 type calcTestloadOptions struct {
@@ -47,6 +47,29 @@ voltage they draw at least the given current, each run at no more than
 	return cmd
 }
 
+// calcTestloadDoc is the JSON document of `calc testload`.
+type calcTestloadDoc struct {
+	Schema      string        `json:"schema"`
+	VoltsV      float64       `json:"volts_v"`
+	AmpsA       float64       `json:"amps_a"`
+	NeedOhm     float64       `json:"need_ohm"`
+	NeedW       float64       `json:"need_w"`
+	Arrangement string        `json:"arrangement"`
+	Parts       []loadPartDoc `json:"parts"`
+	TotalOhm    float64       `json:"total_ohm"`
+	CurrentA    float64       `json:"current_a"`
+	PowerW      float64       `json:"power_w"`
+}
+
+// loadPartDoc is one resistor of a test load.
+type loadPartDoc struct {
+	Ohm          float64 `json:"ohm"`
+	RatingW      float64 `json:"rating_w"`
+	DissipationW float64 `json:"dissipation_w"`
+	// Margin is 1 − dissipation/rating.
+	Margin float64 `json:"margin"`
+}
+
 func calcTestloadRun(o *calcTestloadOptions) error {
 	series, _ := circuit.Series(o.Series)
 	p, err := circuit.PlanTestLoad(math.Abs(o.Volts), o.Amps, series, nil, o.Derating)
@@ -55,13 +78,21 @@ func calcTestloadRun(o *calcTestloadOptions) error {
 	}
 	out := o.app.IO.Out
 	if o.Format == "json" {
-		return writeJSON(out, p)
+		s := report.Sig
+		d := calcTestloadDoc{Schema: report.Schema("calc-testload"), VoltsV: o.Volts, AmpsA: o.Amps, NeedOhm: s(p.NeedOhms), NeedW: s(p.NeedWatts),
+			Arrangement: p.Arrangement, Parts: []loadPartDoc{}, TotalOhm: s(p.TotalOhms), CurrentA: s(p.CurrentA), PowerW: s(p.PowerW)}
+		for _, part := range p.Parts {
+			d.Parts = append(d.Parts, loadPartDoc{part.Ohms, part.Watts, s(part.DissipationW), round(part.Margin, 4)})
+		}
+		return writeJSON(out, d)
 	}
-	fmt.Fprintf(out, "needs at most %s (%.2f W) to draw %s at %g V\n", units.Format(p.NeedOhms, "Ω"), p.NeedWatts, units.Format(o.Amps, "A"), o.Volts)
-	fmt.Fprintf(out, "%s: total %s, draws %.3f A, %.2f W\n", p.Arrangement, units.Format(p.TotalOhms, "Ω"), p.CurrentA, p.PowerW)
+	width := o.app.Width()
+	n := report.Num
+	report.Fill(out, fmt.Sprintf("needs at most %s (%s) to draw %s at %s", n(p.NeedOhms, "Ω"), n(p.NeedWatts, "W"), n(o.Amps, "A"), n(o.Volts, "V")), width, "", "  ")
+	report.Fill(out, fmt.Sprintf("%s: total %s, draws %s, %s", p.Arrangement, n(p.TotalOhms, "Ω"), n(p.CurrentA, "A"), n(p.PowerW, "W")), width, "", "  ")
 	for _, part := range p.Parts {
-		fmt.Fprintf(out, "  %s %g W, dissipates %.2f W (%.0f %% margin)\n", units.Format(part.Ohms, "Ω"), part.Watts, part.DissipationW, part.Margin*100)
+		report.Fill(out, fmt.Sprintf("%s %s, dissipates %s (%s margin)", n(part.Ohms, "Ω"), n(part.Watts, "W"), n(part.DissipationW, "W"), report.Percent(part.Margin)), width, "  ", "    ")
 	}
-	fmt.Fprintln(out, "caution: load resistors run hot; mount them clear of wiring and let them cool before touching")
+	report.Fill(out, "caution: load resistors run hot; mount them clear of wiring and let them cool before touching", width, "", "  ")
 	return nil
 }

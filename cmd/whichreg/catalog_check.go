@@ -2,10 +2,12 @@ package main
 
 import (
 	"fmt"
+	"strings"
 
 	"github.com/spf13/cobra"
 	"github.com/whichreg/whichreg/catalog"
 	"github.com/whichreg/whichreg/catalog/builtin"
+	"github.com/whichreg/whichreg/report"
 )
 
 type catalogCheckOptions struct {
@@ -37,6 +39,14 @@ It exits 1 when there is any.`,
 }
 
 // problemJSON is one lint problem in `catalog check --format json`.
+// catalogCheckDoc is the JSON document of `catalog check`.
+type catalogCheckDoc struct {
+	Schema   string        `json:"schema"`
+	Families int           `json:"families"`
+	Outlines int           `json:"outlines"`
+	Problems []problemJSON `json:"problems"`
+}
+
 type problemJSON struct {
 	File    string `json:"file"`
 	Line    int    `json:"line"`
@@ -68,14 +78,18 @@ func catalogCheckRun(opts *catalogCheckOptions) error {
 		for _, e := range errs {
 			ps = append(ps, problemJSON{e.File, e.Line, e.Col, e.Key, e.Err.Error()})
 		}
-		if err := writeJSON(out, map[string]any{"families": len(c.Families), "outlines": len(c.Outlines), "problems": ps}); err != nil {
+		if err := writeJSON(out, catalogCheckDoc{report.Schema("catalog-check"), len(c.Families), len(c.Outlines), ps}); err != nil {
 			return ioError(err)
 		}
 	} else if len(errs) == 0 {
 		fmt.Fprintf(out, "ok: %d families, %d outlines, no problems\n", len(c.Families), len(c.Outlines))
+		for _, n := range catalog.Notes(c, userOrigins(files)...) {
+			report.Fill(out, "note: "+n.Error(), opts.app.Width(), "", "    ")
+		}
 	} else {
 		for _, e := range errs {
-			fmt.Fprintln(out, e)
+			// The file:line:col: prefix stays on the first line, for editors.
+			report.Fill(out, e.Error(), opts.app.Width(), "", "    ")
 		}
 		fmt.Fprintf(out, "%d problem(s)\n", len(errs))
 	}
@@ -83,4 +97,19 @@ func catalogCheckRun(opts *catalogCheckOptions) error {
 		return &exitError{code: exitInput, err: errPrinted}
 	}
 	return nil
+}
+
+// userOrigins names the files given beside the built-in catalog, so that
+// notes speak only of them.
+func userOrigins(files []*catalog.File) []string {
+	var out []string
+	for _, f := range files {
+		if f != nil && !strings.HasPrefix(f.Name, builtin.Prefix) {
+			out = append(out, f.Name)
+		}
+	}
+	if out == nil {
+		out = []string{""} // no user file: nothing to note
+	}
+	return out
 }

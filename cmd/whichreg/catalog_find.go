@@ -39,11 +39,23 @@ legible characters follow.`,
 	return cmd
 }
 
-// findHitJSON is one hit of `catalog find --format json` (contract:
-// id, kind, vout_v, outline, score, detail).
-type findHitJSON struct {
+// catalogFindDoc is the JSON document of `catalog find` (DESIGN.md
+// contract: {schema, query, hits: [{id, kind, vout_v, outline, score,
+// detail}]}, plus title, how and pattern).
+type catalogFindDoc struct {
+	Schema string       `json:"schema"`
+	Query  string       `json:"query"`
+	Hits   []findHitDoc `json:"hits"`
+}
+
+// findHitDoc is one hit. VoutV and Outline are what the marking's suffixes
+// say ([] and "" when they say nothing).
+type findHitDoc struct {
 	ID      string    `json:"id"`
 	Kind    string    `json:"kind"`
+	Title   string    `json:"title"`
+	How     string    `json:"how"`
+	Pattern string    `json:"pattern"`
 	VoutV   []float64 `json:"vout_v"`
 	Outline string    `json:"outline"`
 	Score   float64   `json:"score"`
@@ -58,26 +70,30 @@ func catalogFindRun(opts *catalogFindOptions) error {
 	hits := catalog.Find(c, opts.Pattern)
 	out := opts.app.IO.Out
 	if opts.Format == "json" {
-		res := []findHitJSON{}
+		d := catalogFindDoc{Schema: report.Schema("catalog-find"), Query: opts.Pattern, Hits: []findHitDoc{}}
 		for _, h := range hits {
-			v := h.VoutV
-			if v == nil {
-				v = []float64{}
+			vs := []float64{}
+			for _, v := range h.VoutV {
+				if h.Family.Negative() {
+					v = -v
+				}
+				vs = append(vs, v)
 			}
-			res = append(res, findHitJSON{h.Family.ID, string(h.Family.Kind), v, h.Outline, h.Score, h.Detail})
+			d.Hits = append(d.Hits, findHitDoc{ID: h.Family.ID, Kind: string(h.Family.Kind), Title: h.Family.Title, How: h.How,
+				Pattern: h.Pattern, VoutV: vs, Outline: h.Outline, Score: h.Score, Detail: h.Detail})
 		}
-		return writeJSON(out, map[string]any{"schema": "whichreg/catalog-find/v1", "query": opts.Pattern, "hits": res})
+		return writeJSON(out, d)
 	}
+	width := opts.app.Width()
 	if len(hits) == 0 {
-		fmt.Fprintf(out, "no family matches %q\n", opts.Pattern)
+		report.Fill(out, fmt.Sprintf("no family matches %q", opts.Pattern), width, "", "  ")
 		if !catalog.Legible(catalog.NormalizeMarking(opts.Pattern)) {
 			fmt.Fprintln(out, "(nothing legible in it: give at least one letter or digit)")
 		}
 		return nil
 	}
-	width := opts.app.Width()
 	for i, h := range hits {
-		fmt.Fprintf(out, "%2d. %-10s %-8s %s\n", i+1, h.Family.ID, h.How, h.Family.Title)
+		report.Fill(out, fmt.Sprintf("%s (%s): %s", h.Family.ID, h.How, h.Family.Title), width, fmt.Sprintf("%2d. ", i+1), "    ")
 		report.Fill(out, h.Detail, width, "    ", "      ")
 	}
 	return nil

@@ -2,12 +2,11 @@ package main
 
 import (
 	"fmt"
-	"io"
 	"strings"
-	"text/tabwriter"
 
 	"github.com/spf13/cobra"
 	"github.com/whichreg/whichreg/catalog"
+	"github.com/whichreg/whichreg/report"
 )
 
 type catalogListOptions struct {
@@ -61,31 +60,35 @@ func catalogListRun(opts *catalogListOptions) error {
 	}
 	out := opts.app.IO.Out
 	if opts.Format == "json" {
-		if fams == nil {
-			fams = []*catalog.Family{}
+		d := catalogListDoc{Schema: report.Schema("catalog-list"), Families: []familyDoc{}}
+		for _, f := range fams {
+			d.Families = append(d.Families, familyDocOf(f))
 		}
-		return writeJSON(out, fams)
+		return writeJSON(out, d)
 	}
-	var tw io.Writer = out
-	var flush func() error
-	if isTerminal(out) {
-		t := tabwriter.NewWriter(out, 0, 4, 2, ' ', 0)
-		fmt.Fprintln(t, "ID\tPOLARITY\tKIND\tCURRENT\tOUTPUT\tPACKAGES\tSTATUS\tTITLE")
-		tw, flush = t, t.Flush
-	}
+	// The title says polarity and kind; it moves under its row when the
+	// width is short.
+	t := &report.Table{Columns: []report.Column{{Header: "ID"}, {Header: "CURRENT", Align: report.Right},
+		{Header: "OUTPUT", Wrap: true}, {Header: "OUTLINES", Wrap: true}, {Header: "STATUS"}, {Header: "TITLE", Wrap: true, Under: true}}}
 	for _, f := range fams {
-		fmt.Fprintf(tw, "%s\t%s\t%s\t%g A\t%s\t%s\t%s\t%s\n", f.ID, f.Polarity, f.Kind, f.CurrentA, outputsText(f), packagesText(f), f.Status, f.Title)
+		t.Row(f.ID, report.Num(f.CurrentA, "A"), outputsText(f), packagesText(f), string(f.Status), f.Title)
 	}
-	if flush == nil {
-		return nil
-	}
-	return flush()
+	return t.Write(out, opts.app.Width())
+}
+
+// catalogListDoc is the JSON document of `catalog list`.
+type catalogListDoc struct {
+	Schema   string      `json:"schema"`
+	Families []familyDoc `json:"families"`
 }
 
 func outputsText(f *catalog.Family) string {
 	sign := ""
 	if f.Negative() {
 		sign = "-"
+	}
+	if f.Kind == "non-regulator" {
+		return string(f.Device)
 	}
 	if f.Adjustable() {
 		return fmt.Sprintf("%s%g V ref", sign, f.VrefV)
@@ -94,7 +97,7 @@ func outputsText(f *catalog.Family) string {
 	for _, v := range f.OutputsV {
 		vs = append(vs, sign+fmt.Sprint(v))
 	}
-	return strings.Join(vs, "/") + " V"
+	return strings.Join(vs, ", ") + " V"
 }
 
 func packagesText(f *catalog.Family) string {
@@ -102,5 +105,5 @@ func packagesText(f *catalog.Family) string {
 	for _, p := range f.Packages {
 		ps = append(ps, p.Outline)
 	}
-	return strings.Join(ps, ",")
+	return strings.Join(ps, ", ")
 }

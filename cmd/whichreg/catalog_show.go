@@ -36,10 +36,12 @@ func newCatalogShowCmd(app *App, runF func(*catalogShowOptions) error) *cobra.Co
 	return cmd
 }
 
-// showJSON is the JSON shape of `catalog show`: the family and its outlines.
-type showJSON struct {
-	*catalog.Family
-	Outlines []*catalog.Outline `json:"outlines"`
+// catalogShowDoc is the JSON document of `catalog show`: the family and
+// the outlines it comes in.
+type catalogShowDoc struct {
+	Schema   string       `json:"schema"`
+	Family   familyDoc    `json:"family"`
+	Outlines []outlineDoc `json:"outlines"`
 }
 
 func catalogShowRun(opts *catalogShowOptions) error {
@@ -61,17 +63,21 @@ func catalogShowRun(opts *catalogShowOptions) error {
 	}
 	out := opts.app.IO.Out
 	if opts.Format == "json" {
-		sj := showJSON{Family: f}
+		d := catalogShowDoc{Schema: report.Schema("catalog-show"), Family: familyDocOf(f), Outlines: []outlineDoc{}}
+		seen := map[string]bool{}
 		for _, p := range f.Packages {
-			sj.Outlines = append(sj.Outlines, c.Outline(p.Outline))
+			if o := c.Outline(p.Outline); o != nil && !seen[o.Name] {
+				seen[o.Name] = true
+				d.Outlines = append(d.Outlines, outlineDocOf(o))
+			}
 		}
-		return writeJSON(out, sj)
+		return writeJSON(out, d)
 	}
 	if read.Family != nil {
 		report.Fill(out, fmt.Sprintf("%s is a %s: %s", opts.ID, f.ID, read.Detail), opts.app.Width(), "", "  ")
 		fmt.Fprintln(out)
 	}
-	writeFamily(out, c, f)
+	writeFamily(out, opts.app.Width(), c, f)
 	return nil
 }
 
@@ -88,59 +94,112 @@ func suggestIDs(c *catalog.Catalog, id string) string {
 	return "'whichreg catalog list' lists every id; 'whichreg catalog find MARKING' searches by marking"
 }
 
-func writeFamily(w io.Writer, c *catalog.Catalog, f *catalog.Family) {
-	fmt.Fprintf(w, "%s — %s\n", f.ID, f.Title)
-	fmt.Fprintf(w, "  from:          %s", f.Origin)
+// fieldWidth is the indent of a field's value in 'catalog show'.
+const fieldWidth = 17
+
+// field writes "  label:  value", the value wrapped under itself.
+func field(w io.Writer, width int, label, value string) {
+	report.Fill(w, value, width, report.Pad("  "+label+":", fieldWidth-1)+" ", strings.Repeat(" ", fieldWidth))
+}
+
+func writeFamily(w io.Writer, width int, c *catalog.Catalog, f *catalog.Family) {
+	report.Fill(w, f.ID+" — "+f.Title, width, "", "  ")
+	from := f.Origin
 	if f.Replaces != "" {
-		fmt.Fprintf(w, " (replaces the entry from %s)", f.Replaces)
+		from += " (replaces the entry from " + f.Replaces + ")"
 	}
-	fmt.Fprintln(w)
-	pass := f.Pass
-	if pass == "" {
-		pass = "npn"
-	}
-	fmt.Fprintf(w, "  polarity:      %s, %s, pass element %s\n", f.Polarity, f.Kind, pass)
-	if f.Adjustable() {
-		fmt.Fprintf(w, "  reference:     %g V ±%g %% (OUT to ADJ); output up to %g V\n", f.VrefV, f.Tolerance*100, f.VoutMaxV)
-		fmt.Fprintf(w, "  ADJ current:   %g µA max (%g typ)\n", f.IadjUA, f.IadjTypUA)
-		fmt.Fprintf(w, "  differential:  %g V max input-output\n", f.VdiffMaxV)
+	field(w, width, "from", from)
+	tol := report.Percent(f.Tolerance)
+	switch {
+	case f.Kind == "non-regulator":
+		field(w, width, "what it is", string(f.Device)+": a look-alike that sits where a regulator might; never a replacement")
+		if len(f.ControlDropV) == 2 {
+			field(w, width, "control drop", report.Num(f.ControlDropV[0], "V")+" to "+report.Num(f.ControlDropV[1], "V")+" conducting")
+		}
+		if f.VrefV > 0 {
+			field(w, width, "reference", report.Num(f.VrefV, "V")+" ±"+tol)
+		}
 		if f.VinMaxV > 0 {
-			fmt.Fprintf(w, "  input:         %g V max\n", f.VinMaxV)
+			field(w, width, "voltage", report.Num(f.VinMaxV, "V")+" max")
 		}
-	} else {
-		fmt.Fprintf(w, "  outputs:       %s ±%g %%\n", outputsText(f), f.Tolerance*100)
-		fmt.Fprintf(w, "  input:         %g V max", f.VinMaxV)
+	case f.Adjustable():
+		pass := string(f.Pass)
+		if pass == "" {
+			pass = "npn"
+		}
+		field(w, width, "polarity", string(f.Polarity)+", "+string(f.Kind)+", pass element "+pass)
+		ref := report.Num(f.VrefV, "V") + " ±" + tol + " (OUT to ADJ)"
+		if f.VoutMaxV > 0 {
+			ref += "; output up to " + report.Num(f.VoutMaxV, "V")
+		}
+		field(w, width, "reference", ref)
+		field(w, width, "ADJ current", report.Num(f.IadjUA*1e-6, "A")+" max"+typ(f.IadjTypUA*1e-6, "A"))
+		field(w, width, "differential", report.Num(f.VdiffMaxV, "V")+" max input-output")
+		if f.VinMaxV > 0 {
+			field(w, width, "input", report.Num(f.VinMaxV, "V")+" max")
+		}
+	default:
+		pass := string(f.Pass)
+		if pass == "" {
+			pass = "npn"
+		}
+		field(w, width, "polarity", string(f.Polarity)+", "+string(f.Kind)+", pass element "+pass)
+		field(w, width, "outputs", outputsText(f)+" ±"+tol)
+		in := report.Num(f.VinMaxV, "V") + " max"
 		if f.VinMaxHighV > 0 {
-			fmt.Fprintf(w, " (%g V for %g V and up)", f.VinMaxHighV, f.VinMaxHighFromV)
+			in += " (" + report.Num(f.VinMaxHighV, "V") + " for " + report.Num(f.VinMaxHighFromV, "V") + " and up)"
 		}
-		fmt.Fprintln(w)
-		fmt.Fprintf(w, "  ground current: %g mA max (%g typ)\n", f.IqMA, f.IqTypMA)
+		field(w, width, "input", in)
+		field(w, width, "ground current", report.Num(f.IqMA*1e-3, "A")+" max"+typ(f.IqTypMA*1e-3, "A"))
 	}
-	fmt.Fprintf(w, "  current:       %g A rated\n", f.CurrentA)
-	fmt.Fprintf(w, "  dropout:       %g V at rated current\n", f.DropoutV)
-	fmt.Fprintf(w, "  minimum load:  %g mA\n", f.MinLoadMA)
-	fmt.Fprintf(w, "  junction:      %g °C max\n", f.TjMaxC)
-	fmt.Fprintf(w, "  output cap:    %s\n", coutText(f.Cout))
+	field(w, width, "current", report.Num(f.CurrentA, "A")+" rated")
+	if f.Kind != "non-regulator" {
+		field(w, width, "dropout", report.Num(f.DropoutV, "V")+" at rated current")
+		field(w, width, "minimum load", report.Num(f.MinLoadMA*1e-3, "A"))
+	}
+	field(w, width, "junction", report.Num(f.TjMaxC, "°C")+" max")
+	if f.Kind != "non-regulator" {
+		field(w, width, "output cap", coutText(f.Cout))
+	}
 	if f.Efficiency > 0 {
-		fmt.Fprintf(w, "  efficiency:    %g %%\n", f.Efficiency*100)
+		field(w, width, "efficiency", report.Percent(f.Efficiency))
 	}
-	fmt.Fprintf(w, "  status:        %s; since %d; commonness %d of 5\n", f.Status, f.Since, f.Commonness)
-	fmt.Fprintf(w, "  markings:      %s\n", strings.Join(f.Markings, " "))
-	fmt.Fprintf(w, "  source:        %s\n", f.Source)
+	since := "unknown"
+	if f.Since > 0 {
+		since = fmt.Sprint(f.Since)
+	}
+	field(w, width, "status", fmt.Sprintf("%s; since %s; commonness %d of 5", f.Status, since, f.Commonness))
+	field(w, width, "markings", strings.Join(f.Markings, " "))
+	field(w, width, "source", f.Source)
 	for _, n := range f.Notes {
-		fmt.Fprintf(w, "  note:          %s\n", n)
+		field(w, width, "note", n)
 	}
 	for i := range f.Packages {
 		p := &f.Packages[i]
 		o := c.Outline(p.Outline)
-		fmt.Fprintf(w, "\n  package %s: %g A, theta_jc %g, theta_ja %g °C/W, %s\n", p.Outline, f.Current(p), p.ThetaJC, p.ThetaJA, f.StatusOf(p))
+		fmt.Fprintln(w)
+		report.Fill(w, fmt.Sprintf("package %s: %s, θJC %s, θJA %s, %s", p.Label(), report.Num(f.Current(p), "A"),
+			report.Num(p.ThetaJC, "°C/W"), report.Num(p.ThetaJA, "°C/W"), f.StatusOf(p)), width, "  ", "    ")
 		if p.Note != "" {
-			fmt.Fprintf(w, "  note: %s\n", p.Note)
+			report.Fill(w, p.Note, width, "  note: ", "        ")
 		}
-		for _, line := range strings.Split(strings.TrimRight(catalog.Drawing(o, p), "\n"), "\n") {
+		for k, line := range strings.Split(strings.TrimRight(catalog.Drawing(o, p), "\n"), "\n") {
+			if k == 0 {
+				// The caption is prose: it wraps; the drawing below does not.
+				report.Fill(w, line, width, "    ", "      ")
+				continue
+			}
 			fmt.Fprintf(w, "    %s\n", line)
 		}
 	}
+}
+
+// typ writes " (X typ)" for a typical figure, nothing when it is not given.
+func typ(v float64, unit string) string {
+	if v == 0 {
+		return ""
+	}
+	return " (" + report.Num(v, unit) + " typ)"
 }
 
 func coutText(c catalog.COut) string {
@@ -150,13 +209,18 @@ func coutText(c catalog.COut) string {
 			s += "; not for ceramic alone"
 		}
 		if c.MaxUF > 0 {
-			s += fmt.Sprintf("; at most %g µF", c.MaxUF)
+			s += "; at most " + report.Num(c.MaxUF*1e-6, "F")
 		}
 		return s
 	}
-	s := fmt.Sprintf("at least %g µF", c.MinUF)
-	if c.ESRMinOhm > 0 || c.ESRMaxOhm > 0 {
-		s += fmt.Sprintf(", ESR %g–%g Ω", c.ESRMinOhm, c.ESRMaxOhm)
+	s := "at least " + report.Num(c.MinUF*1e-6, "F")
+	switch {
+	case c.ESRMinOhm > 0 && c.ESRMaxOhm > 0:
+		s += ", ESR " + report.Num(c.ESRMinOhm, "Ω") + " to " + report.Num(c.ESRMaxOhm, "Ω")
+	case c.ESRMinOhm > 0:
+		s += ", ESR at least " + report.Num(c.ESRMinOhm, "Ω")
+	case c.ESRMaxOhm > 0:
+		s += ", ESR at most " + report.Num(c.ESRMaxOhm, "Ω")
 	}
 	if c.CeramicOK {
 		s += "; ceramic OK"

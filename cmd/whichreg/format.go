@@ -4,11 +4,13 @@ import (
 	"encoding/json"
 	"fmt"
 	"io"
+	"strconv"
 	"strings"
 
 	"github.com/spf13/cobra"
 
 	"github.com/whichreg/whichreg/internal/units"
+	"github.com/whichreg/whichreg/report"
 )
 
 // enumFlag is a string flag whose value must be one of a list.
@@ -78,4 +80,44 @@ func writeJSON(w io.Writer, v any) error {
 	enc := json.NewEncoder(w)
 	enc.SetIndent("", "  ")
 	return enc.Encode(v)
+}
+
+// capFlag is --cap: a capacitance in farads that takes a unit or prefix. A
+// bare number of a farad or more is refused, since "--cap 2200" almost
+// always means 2200 µF.
+type capFlag struct{ quantityFlag }
+
+func (f *capFlag) Set(s string) error {
+	v, err := units.Parse(s, "F")
+	if err != nil {
+		return err
+	}
+	if _, bare := strconv.ParseFloat(strings.TrimSpace(s), 64); bare == nil && v >= 1 {
+		return fmt.Errorf("%s would be %s, not a filter capacitor: give the unit or prefix, e.g. %su or %suF for %s µF", s, report.Num(v, "F"), s, s, s)
+	}
+	return f.quantityFlag.Set(s)
+}
+
+// microFlag is a quantity whose bare numbers are in millionths of the unit
+// (--filter-uf 2200 is 2200 µF, as the evidence key filter_uf); a unit or
+// prefix may still be given. value is set in the base unit.
+type microFlag struct {
+	value *float64
+	unit  string
+}
+
+func (f *microFlag) String() string {
+	if f.value == nil || *f.value == 0 {
+		return ""
+	}
+	return fmt.Sprint(*f.value / 1e-6)
+}
+func (f *microFlag) Type() string { return "µ" + f.unit }
+func (f *microFlag) Set(s string) error {
+	v, err := units.ParseIn(s, f.unit, 1e-6)
+	if err != nil {
+		return err
+	}
+	*f.value = v * 1e-6
+	return nil
 }

@@ -52,7 +52,7 @@ func guideDriver(t *testing.T, file string, complete map[string]any) ([]guideJSO
 		code <- run(app, []string{"guide", file, "--format", "json"})
 		outW.Close()
 	}()
-	schema := loadSchema(t, "../../docs/schema/guide.v1.json")
+	schema := guideSchema(t)
 	var objs []guideJSON
 	asked := 0
 	sc := bufio.NewScanner(outR)
@@ -62,9 +62,7 @@ func guideDriver(t *testing.T, file string, complete map[string]any) ([]guideJSO
 		if err := json.Unmarshal(sc.Bytes(), &o); err != nil {
 			t.Fatalf("not a JSON line: %v\n%s", err, sc.Text())
 		}
-		var raw any
-		_ = json.Unmarshal(sc.Bytes(), &raw)
-		if err := schema.validate(schema, raw, "$"); err != nil {
+		if err := validateLine(t, schema, sc.Bytes()); err != nil {
 			t.Fatalf("docs/schema/guide.v1.json: %v\n%s", err, sc.Text())
 		}
 		objs = append(objs, o)

@@ -1,0 +1,167 @@
+package infer
+
+import (
+	"fmt"
+	"math"
+
+	"github.com/whichreg/whichreg/infer/circuit"
+)
+
+// boosterVBE is the base-emitter drop at which a booster transistor takes
+// over from the regulator: about 0.7 V for a silicon power transistor at
+// tens of milliamperes (2N2955/TIP42 class datasheet VBE(on) curves; the
+// usual design figure of the datasheets' current-boost circuit).
+const boosterVBE = 0.7
+
+// termCurrent weighs the current the part itself carries against its
+// rating: the load, less a bypass resistor's share (circuit.Bypass, the same
+// rule as replacement's) or, with a booster transistor, what its sense
+// resistor lets through before the transistor takes over. Far above the
+// rating is a near-veto.
+func termCurrent(sc *scene, h Hypothesis, v voltsView, r *reasons) {
+	ev, f := sc.ev, h.Family
+	out := ev.Output
+	if out == nil || !out.Amps.Set || out.Amps.V <= 0 {
+		return
+	}
+	i := out.Amps.V
+	var text string
+	ireg := i
+	switch b := ev.Booster; {
+	case b != nil && !b.RSenseOhms.Set:
+		return // the booster's share is unknown: the load says nothing of the part
+	case b != nil:
+		ireg = math.Min(i, boosterVBE/b.RSenseOhms.V)
+		text = fmt.Sprintf("part current %.3f A (%.3f A load; the booster takes over above %.2f V across %s) against %.3g A rated",
+			ireg, i, boosterVBE, ohmsText(b.RSenseOhms.V), f.Current(h.Package))
+	case ev.Bypass != nil && ev.Bypass.Ohms.V > 0 && v.haveIn && v.haveOut:
+		br, err := (circuit.Bypass{ROhm: ev.Bypass.Ohms.V, VinMinV: math.Abs(v.in), VinMaxV: math.Abs(v.in), VoutV: math.Abs(v.out), LoadMinA: i, LoadMaxA: i}).Solve()
+		if err == nil && br.ResistorMinA > 0 {
+			ireg = math.Max(0, i-br.ResistorMinA)
+			text = fmt.Sprintf("part current %.3f A (%.3f A load less %.3f A through the bypass resistor) against %.3g A rated", ireg, i, br.ResistorMinA, f.Current(h.Package))
+		}
+	}
+	rating := f.Current(h.Package)
+	if rating <= 0 {
+		return
+	}
+	if text == "" {
+		text = fmt.Sprintf("part current %.3f A against %.3g A rated", ireg, rating)
+	}
+	q := ireg / rating
+	// Designers leave margin below the rating and seldom use a large part
+	// for a tiny load (common practice, no source).
+	switch {
+	case q >= 2:
+		r.veto("current", "%s: twice the rating or more", text)
+	case q > 1:
+		r.add("current", 0.6*math.Exp(-0.5*sq((q-1)/0.15))+0.01, 0.3, "%s: over the rating", text)
+	case q > 0.8:
+		r.add("current", 0.6, 0.3, "%s: close to the rating", text)
+	case q < 0.05:
+		r.add("current", 0.3, 0.3, "%s: a large part for so small a load", text)
+	default:
+		r.add("current", 0.9, 0.3, "%s", text)
+	}
+}
+
+// termInputMax weighs the highest input the circuit presents against the
+// part's running limit ([catalog.Family.InputLimit]; start-up is
+// replacement's question).
+func termInputMax(sc *scene, h Hypothesis, v voltsView, r *reasons) {
+	f := h.Family
+	inPeak := sc.input.Peak
+	if v.haveIn {
+		inPeak = sc.input.PeakFor(v.in)
+	}
+	peak, from := inPeak.V, inPeak.At
+	if peak <= 0 {
+		return
+	}
+	il := f.InputLimit(h.VoutV)
+	limit, what := il.RunV, il.What
+	if f.NonRegulator() {
+		what = "voltage rating"
+	}
+	if f.Adjustable() && h.VoutV > 0 && limit > il.StartV {
+		what += " plus the output"
+	}
+	if limit <= 0 {
+		return
+	}
+	q := peak / limit
+	switch {
+	case q <= 1:
+		r.add("input_max", 0.9, 0.5, "input peak %.1f V (%s) within the %s %.0f V", peak, from, what, limit)
+	case q <= 1.05:
+		r.add("input_max", 0.3, 0.5, "input peak %.1f V (%s) just over the %s %.0f V", peak, from, what, limit)
+	case q <= 1.15:
+		r.add("input_max", 0.05, 0.5, "input peak %.1f V (%s) over the %s %.0f V", peak, from, what, limit)
+	default:
+		r.add("input_max", 0.01, 0.5, "input peak %.1f V (%s) far over the %s %.0f V", peak, from, what, limit)
+	}
+}
+
+// termDivider weighs what the resistor network predicts for this part
+// against the measured output.
+func termDivider(sc *scene, h Hypothesis, v voltsView, r *reasons) {
+	nw := sc.ev.Network
+	if nw == nil || !nw.RTopOhms.Set || !nw.RBottomOhms.Set || !v.haveOut || !isRegulator(h) || (h.VoutV == 0 && !h.Family.Adjustable()) {
+		return
+	}
+	f := h.Family
+	bottom := nw.BottomToVolts.V
+	rt, rb := nw.RTopOhms.V, nw.RBottomOhms.V
+	var pred, spread float64
+	if f.Adjustable() {
+		pred, _ = circuit.DividerVout(f.VrefV, f.IadjTypUA*1e-6, rt, rb, v.sign*bottom)
+		spread = f.Tolerance*f.VrefV*(1+rb/rt) + f.IadjUA*1e-6*rb
+	} else {
+		pred, _ = circuit.DividerVout(h.VoutV, f.IqTypMA*1e-3, rt, rb, v.sign*bottom)
+		spread = f.Tolerance*h.VoutV*(1+rb/rt) + f.IqMA*1e-3*rb
+	}
+	allowed := spread + 2*(meterAbsV+meterRel*math.Abs(v.out))
+	z := math.Abs(math.Abs(v.out)-pred) / allowed
+	r.add("network", window(z), 0.05, "the divider (%s over %s) gives %.2f V with this part; %.2f V measured", ohmsText(rt), ohmsText(rb), v.sign*pred, v.out)
+}
+
+// termCommonParts weighs diodes or a zener in the common lead: the usual
+// lifted ground of a fixed part, an odd way to set an adjustable one (its
+// output is set with resistors), no place for a transistor. A measured
+// common lead must sit at the lift.
+func termCommonParts(sc *scene, h Hypothesis, v voltsView, r *reasons) {
+	up, spread := lift(sc.ev)
+	if up == 0 {
+		return
+	}
+	f := h.Family
+	switch {
+	case f.Adjustable():
+		r.add("network.lift", 0.2, 0.5, "diodes or a zener in the common lead: an adjustable part sets its output with resistors")
+	case !isRegulator(h):
+		r.add("network.lift", 0.2, 0.5, "diodes or a zener in a common lead: this part has no common lead to lift")
+	default:
+		r.add("network.lift", 0.8, 0.5, "diodes or a zener in the common lead: the usual way to lift a fixed part's ground")
+	}
+	if v.haveCom && isRegulator(h) && !f.Adjustable() {
+		allowed := spread + 2*(meterAbsV+meterRel*math.Abs(v.com))
+		z := math.Abs(math.Abs(v.com)-up) / allowed
+		r.add("network.lift", window(z), 0.05, "%s lead reads %+.2f V; the common-lead parts give %.2f V ±%.2f", f.Common(h.Package), v.com, up, allowed)
+	}
+}
+
+// termTrimmer weighs a trimmer in the network.
+func termTrimmer(sc *scene, h Hypothesis, _ voltsView, r *reasons) {
+	nw := sc.ev.Network
+	if nw == nil || nw.Trimmer == nil || !*nw.Trimmer {
+		return
+	}
+	switch {
+	case h.Family.Adjustable():
+		r.add("network.trimmer", 0.7, 0.5, "a trimmer in the network: usual for an adjustable part")
+	case h.Family.NonRegulator():
+		r.add("network.trimmer", 0.5, 0.5, "a trimmer in the network: it may set a transistor's base or a reference")
+	default:
+		r.add("network.trimmer", 0.3, 0.5, "a trimmer in the network: a fixed part would need a lifted ground")
+	}
+}

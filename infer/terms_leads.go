@@ -1,0 +1,216 @@
+package infer
+
+import (
+	"fmt"
+	"math"
+
+	"github.com/whichreg/whichreg/catalog"
+)
+
+// pFlatWired is the chance of a wiring word for a lead of an unknown part:
+// six words, equally likely.
+const pFlatWired = 1.0 / 6
+
+// wiringRow is P(wiring word | what the lead does), in the order of the
+// wiring words ([Wirings]). Each row sums to 1 (judgement: common practice,
+// no source).
+type wiringRow [6]float64
+
+// The rows: (unregulated, load, ground, network, open, inductor).
+func row(u, l, g, n, o, i float64) wiringRow { return wiringRow{u, l, g, n, o, i} }
+
+// p returns the probability of word w (0 for a word not in the list).
+func (wr wiringRow) p(w Wiring) float64 {
+	for i, x := range wirings.words {
+		if x == w {
+			return wr[i]
+		}
+	}
+	return 0
+}
+
+// wiringOf returns the row of a lead of function fn in family f. A
+// transistor's leads take the row of what they do in a series pass circuit:
+// the collector (drain) of an N-type part and the emitter (source) of a
+// P-type part come from the unregulated rail, the other main lead feeds the
+// load, the base (gate) sits on a network.
+func wiringOf(f *catalog.Family, fn string) wiringRow {
+	supply := row(0.85, 0.03, 0.03, 0.06, 0.02, 0.01)
+	output := row(0.02, 0.80, 0.08, 0.08, 0.01, 0.01)
+	control := row(0.05, 0.03, 0.04, 0.85, 0.02, 0.01)
+	ground := row(0.015, 0.02, 0.795, 0.15, 0.01, 0.01)
+	onOff := row(0.10, 0.05, 0.69, 0.10, 0.05, 0.01)
+	if d := f.Device; d.Transistor() {
+		pType := d.Polarity() == "negative"
+		switch fn {
+		case catalog.PinC, catalog.PinD:
+			if pType {
+				return output
+			}
+			return supply
+		case catalog.PinE, catalog.PinS:
+			if pType {
+				return supply
+			}
+			return output
+		case catalog.PinB, catalog.PinG:
+			return control
+		}
+	}
+	switch fn {
+	case catalog.PinIn:
+		return row(0.89, 0.02, 0.03, 0.02, 0.03, 0.01)
+	case catalog.PinOut:
+		return row(0.02, 0.85, 0.01, 0.10, 0.01, 0.01)
+	case catalog.PinGnd, catalog.PinA:
+		return ground
+	case catalog.PinAdj, catalog.PinRef, catalog.PinB, catalog.PinG:
+		return row(0.015, 0.02, 0.10, 0.85, 0.005, 0.01)
+	case catalog.PinNC:
+		return row(0.05, 0.10, 0.10, 0.05, 0.69, 0.01)
+	case catalog.PinEn, catalog.PinInh:
+		return onOff
+	case catalog.PinK: // a shunt reference's cathode is the rail it holds, fed through a resistor
+		return row(0.03, 0.55, 0.02, 0.38, 0.01, 0.01)
+	case catalog.PinFB: // tied to the output after the coil, or to a divider
+		return row(0.01, 0.55, 0.02, 0.40, 0.01, 0.01)
+	case catalog.PinSW: // the switch node drives the coil (continuity through it reads as the load)
+		return row(0.02, 0.15, 0.01, 0.02, 0.01, 0.79)
+	}
+	return row(0.2, 0.2, 0.2, 0.2, 0.15, 0.05)
+}
+
+// termPackage weighs a named package against the variant's outline. A name
+// whose lead count contradicts the leads counted is left out: the measured
+// outline decides, and the cross-checks say the name looks wrong.
+func termPackage(sc *scene, h Hypothesis, _ voltsView, r *reasons) {
+	ev, o := sc.ev, h.Outline
+	if ev.Package == "" || o == nil || sc.packageContradicted() {
+		return
+	}
+	// Outlines with the same lead count are confused now and then (a TO-220
+	// for its insulated form); a different lead count seldom.
+	named := sc.c.Outline(ev.Package)
+	switch {
+	case namesOutline(ev.Package, o):
+		r.add("package", 0.95, 1.0/12, "package %s named; this variant is %s", ev.Package, o.Name)
+	case named != nil && named.Leads != o.Leads:
+		r.add("package", 0.001, 1.0/12, "package %s named (%d leads), but this variant is %s (%d leads)", ev.Package, named.Leads, o.Name, o.Leads)
+	default:
+		r.add("package", 0.01, 1.0/12, "package %s named, but this variant is %s", ev.Package, o.Name)
+	}
+}
+
+// packageContradicted reports whether the named package's lead count
+// differs from the leads counted.
+func (sc *scene) packageContradicted() bool {
+	ev := sc.ev
+	if ev.Package == "" || ev.Outline == nil || ev.Outline.Leads == nil {
+		return false
+	}
+	o := sc.c.Outline(ev.Package)
+	return o != nil && o.Leads != *ev.Outline.Leads
+}
+
+// termOutline weighs the outline measured with calipers: the lead count,
+// the pitch and the hole spacing (Gaussian about the outline's figure), a
+// metal can.
+func termOutline(sc *scene, h Hypothesis, _ voltsView, r *reasons) {
+	m, o := sc.ev.Outline, h.Outline
+	if m == nil || o == nil {
+		return
+	}
+	if m.Leads != nil {
+		if *m.Leads == o.Leads {
+			r.add("outline.leads", 0.97, 0.25, "%d leads, as %s has", *m.Leads, o.Name)
+		} else {
+			r.add("outline.leads", 0.005, 0.25, "%d leads measured, %s has %d", *m.Leads, o.Name, o.Leads)
+		}
+	}
+	if m.PitchMM.Set {
+		sigma := 0.1 + 0.04*o.PitchMM
+		pdf := math.Exp(-0.5*sq((m.PitchMM.V-o.PitchMM)/sigma)) / (sigma * math.Sqrt(2*math.Pi))
+		r.add("outline.pitch_mm", 0.95*pdf+0.05/20, 1.0/20, "pitch %.2f mm measured, %s is %.2f mm", m.PitchMM.V, o.Name, o.PitchMM)
+	}
+	if m.HoleSpacingMM.Set {
+		if o.HoleSpacingMM > 0 {
+			sigma := 0.6
+			pdf := math.Exp(-0.5*sq((m.HoleSpacingMM.V-o.HoleSpacingMM)/sigma)) / (sigma * math.Sqrt(2*math.Pi))
+			r.add("outline.hole_spacing_mm", 0.95*pdf+0.05/50, 1.0/50, "holes %.1f mm apart, %s %.2f mm", m.HoleSpacingMM.V, o.Name, o.HoleSpacingMM)
+		} else {
+			r.add("outline.hole_spacing_mm", 0.01, 1.0/50, "two mounting holes measured; %s has none or one", o.Name)
+		}
+	}
+	if m.MetalCan != nil {
+		if *m.MetalCan == o.MetalCan {
+			r.add("outline.metal_can", 0.97, 0.5, "metal can %v, as %s", *m.MetalCan, o.Name)
+		} else {
+			r.add("outline.metal_can", 0.01, 0.5, "metal can %v measured; %s is not", *m.MetalCan, o.Name)
+		}
+	}
+}
+
+// termWiring weighs each lead's continuity against the function the
+// pinout gives it.
+func termWiring(sc *scene, h Hypothesis, _ voltsView, r *reasons) {
+	pk, f := h.Package, h.Family
+	for _, n := range sc.ev.Leads() {
+		p, _ := sc.ev.Lead(n)
+		if p.WiredTo == "" {
+			continue
+		}
+		key := fmt.Sprintf("pins.%d", n)
+		if n > len(pk.Pins) {
+			r.add(key, 0.01, pFlatWired, "lead %d measured, but %s has only %d leads", n, pk.Outline, len(pk.Pins))
+			continue
+		}
+		fn := pk.Pins[n-1]
+		r.add(key, wiringOf(f, fn).p(p.WiredTo), pFlatWired, "lead %d to %s: this pinout puts %s there", n, p.WiredTo, fn)
+	}
+}
+
+// termCase weighs the tab's or can's continuity and wiring.
+func termCase(sc *scene, h Hypothesis, _ voltsView, r *reasons) {
+	cs, o, pk, f := sc.ev.Case, h.Outline, h.Package, h.Family
+	if cs == nil || o == nil {
+		return
+	}
+	if o.CaseTerminal {
+		if cs.TiedToPin != nil && *cs.TiedToPin > 0 {
+			r.add("case.tied_to_pin", 0.02, 1.0/3, "case tied to lead %d, but on %s the can is a terminal of its own (%s)", *cs.TiedToPin, o.Name, pk.Tab)
+		} else if cs.TiedToPin != nil {
+			r.add("case.tied_to_pin", 0.95, 1.0/3, "case tied to no lead: on %s the can is the %s terminal", o.Name, pk.Tab)
+		}
+		if cs.WiredTo != "" {
+			r.add("case.wired_to", wiringOf(f, pk.Tab).p(cs.WiredTo), pFlatWired, "can to %s: this variant's can is %s", cs.WiredTo, pk.Tab)
+		}
+		return
+	}
+	live := pk.Tab != catalog.TabNone && pk.Tab != ""
+	if cs.TiedToPin == nil {
+		if cs.WiredTo != "" && live {
+			r.add("case.wired_to", wiringOf(f, pk.Tab).p(cs.WiredTo), pFlatWired, "case to %s: this variant's tab is %s", cs.WiredTo, pk.Tab)
+		}
+		return
+	}
+	k := *cs.TiedToPin
+	flat := 1.0 / float64(len(pk.Pins)+1)
+	want := 0
+	if live {
+		want = pk.Lead(pk.Tab)
+	}
+	switch {
+	case !o.Tab && !o.MetalCan && k > 0:
+		r.add("case.tied_to_pin", 0.01, flat, "case tied to lead %d, but %s has no metal tab or can", k, o.Name)
+	case k == want && want == 0:
+		r.add("case.tied_to_pin", 0.9, flat, "case tied to no lead: %s has no live tab", pk.Outline)
+	case k == want:
+		r.add("case.tied_to_pin", 0.92, flat, "case tied to lead %d: this variant's tab is %s", k, pk.Tab)
+	case want == 0:
+		r.add("case.tied_to_pin", 0.04, flat, "case tied to lead %d, but %s has no tab tied to a lead", k, pk.Outline)
+	case k == 0:
+		r.add("case.tied_to_pin", 0.03, flat, "case tied to no lead, but this variant's tab is %s (lead %d)", pk.Tab, want)
+	default:
+		r.add("case.tied_to_pin", 0.02, flat, "case tied to lead %d, but this variant's tab is %s (lead %d)", k, pk.Tab, want)
+	}
+}
