@@ -262,10 +262,14 @@ func makeCore(pattern, filled string, vout float64) core {
 	c := core{pattern: pattern, vout: vout, anchorL: !strings.HasPrefix(n, "*"), anchorR: !strings.HasSuffix(n, "*")}
 	n = strings.Trim(n, "*")
 	c.text = []byte(n)
-	first := strings.IndexAny(n, "0123456789")
-	if first > 0 {
-		if _, ok := makerPrefixes[n[:first]]; ok {
-			c.lead = first
+	letters := 0
+	for letters < len(n) && n[letters] >= 'A' && n[letters] <= 'Z' {
+		letters++
+	}
+	for k := letters; k > 0; k-- {
+		if _, ok := makerPrefixes[n[:k]]; ok {
+			c.lead = k // the pattern spells a maker prefix (*LM309*, *LF??C*)
+			break
 		}
 	}
 	last := strings.LastIndexAny(n, "0123456789")
