@@ -30,7 +30,7 @@ func (f *Family) GroundCurrentA(loadA float64) float64 {
 	if f.Adjustable() {
 		i = f.IadjUA * 1e-6
 	}
-	if f.Pass == "pnp" {
+	if f.Pass == PassPNP {
 		i += pnpDriveFraction * math.Max(0, loadA)
 	}
 	return i
@@ -71,15 +71,18 @@ func (f *Family) InputLimit(voutV float64) InputLimit {
 	return l
 }
 
-// Signed returns the magnitude v with the family's sign: negative for a
-// negative regulator. Every figure inside the models is a magnitude; this is
-// the one place a rail gets its sign back.
-func (f *Family) Signed(v float64) float64 {
-	if f.Negative() {
+// Signed returns the magnitude v with the polarity's sign: negative for a
+// negative rail. Every figure inside the models is a magnitude; this is the
+// one place a rail gets its sign back.
+func (p Polarity) Signed(v float64) float64 {
+	if p == Negative {
 		return -math.Abs(v)
 	}
 	return math.Abs(v)
 }
+
+// Signed returns v with the family's sign ([Polarity.Signed]).
+func (f *Family) Signed(v float64) float64 { return f.Polarity.Signed(v) }
 
 // SignText returns "-" for a negative family and "" otherwise, to put in
 // front of a magnitude written with a format verb.

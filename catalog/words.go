@@ -36,7 +36,8 @@ type Pass string
 const (
 	PassNPN       Pass = "npn"       // classic Darlington NPN, about 2 V headroom
 	PassNPNLDO    Pass = "npn-ldo"   // quasi-LDO, about 1.3 V
-	PassPNP       Pass = "pnp"       // LDO
+	PassPNP       Pass = "pnp"       // LDO with a PNP pass transistor (base drive adds to the ground current)
+	PassPMOS      Pass = "pmos"      // CMOS LDO with a P-channel pass element (ground current independent of load)
 	PassSwitching Pass = "switching" // drop-in switching module
 )
 
@@ -106,7 +107,7 @@ func Polarities() []Polarity { return []Polarity{Positive, Negative} }
 func Kinds() []Kind { return []Kind{KindFixed, KindAdjustable, KindNonRegulator} }
 
 // Passes lists the allowed pass elements.
-func Passes() []Pass { return []Pass{PassNPN, PassNPNLDO, PassPNP, PassSwitching} }
+func Passes() []Pass { return []Pass{PassNPN, PassNPNLDO, PassPNP, PassPMOS, PassSwitching} }
 
 // Statuses lists the allowed production states.
 func Statuses() []Status { return []Status{Active, Obsolete, Scarce} }

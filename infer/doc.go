@@ -4,23 +4,46 @@
 // would best separate the leaders, and checks replacements against the
 // circuit.
 //
+// # Evidence
+//
+// [LoadEvidence] decodes a file strictly (unknown keys, bad words and types
+// are positioned errors) and checks it with [Evidence.Check], which an
+// [Evidence] built in Go can call too. The evidence words ([Wiring],
+// [CapType], [Insulator], [InputKind], [Transistor]) are string types that
+// decode themselves; each list lives in one place. [Template] is the file
+// `whichreg evidence init` writes: it measures nothing until a line is
+// uncommented.
+//
 // # Identification
 //
-// A hypothesis is a (family, package variant, output voltage) triple. Its
-// score is a sum of natural-log terms, each kept as a [Reason]: a prior
-// (commonness, era, how many variants share the family's mass) plus one
-// log-likelihood per piece of evidence (outline, each lead's wiring, the case
-// tie, the lead voltages mapped through the pinout, the regulator current,
-// the input peak against the input maximum, the marking, the divider).
-// Missing evidence adds nothing. A "not in the catalog" hypothesis gets a flat
-// likelihood for every piece of evidence, so evidence that fits nothing
-// says so. Probabilities are the normalised exponentials of the scores; the
-// score of a candidate is exactly the sum of its reasons' weights.
+// A hypothesis is a (family, package variant, output voltage) triple; the
+// catalog's look-alikes (transistors, shunt references, switching ICs) are
+// hypotheses too. Its score is a sum of natural-log terms, each kept as a
+// [Reason]: a prior (commonness, era, how many variants share the family's
+// mass, prior.go) plus the likelihood terms, one function per kind of
+// evidence in one list (terms*.go): outline, each lead's wiring, the case
+// tie, the lead voltages mapped through the pinout (regulation, headroom,
+// polarity, a transistor's control drop and lead order, a shunt
+// reference's reference), the part's current, the input peak against its
+// limit (the shared input model, [OperatingPoint]), the divider and lifted
+// ground, the marking. Missing evidence adds nothing. Evidence a part
+// cannot produce is a near-veto that outweighs all the support the rest
+// gives it, so a contradicted family cannot lead. A "not in the catalog"
+// hypothesis gets a flat likelihood for every piece of evidence, so
+// evidence that fits nothing says so. Probabilities are the normalised
+// exponentials of the scores; the score of a candidate is exactly the sum of
+// its reasons' weights. Cross-checks (checks.go) list conflicts without
+// failing: a slip in the transformer figure, a misread marking, swapped
+// meter leads, a package name that does not fit the leads counted.
 //
 // # Next measurement
 //
-// For each measurement still open (a lead's continuity or voltage, a voltage
-// between two leads, the case tie, the load current), every hypothesis
-// predicts an outcome; the expected information gain is the entropy, in
-// bits, of the predicted outcome over the posterior.
+// For each measurement still open (a lead's continuity or voltage, the case
+// tie, the load current, the input's ripple trough, a bench dropout test,
+// the package, a second look at the marking), every hypothesis predicts an
+// outcome; the expected information gain is the mutual information, in bits,
+// between the leading hypotheses and the outcome. Each [Measurement] names
+// the evidence key its answer fills, how the answer is written and, for a
+// powered one, the caution to show first. Measurements the outline or the
+// circuit cannot give are never offered.
 package infer

@@ -79,6 +79,14 @@ type BoosterEvidence struct {
 	RSenseOhms Ohms       `toml:"r_sense_ohms" json:"r_sense_ohms"`       // the resistor whose drop turns the transistor on
 }
 
+// BenchEvidence is what a powered bench test found, with a current-limited
+// bench supply in place of the part's input.
+type BenchEvidence struct {
+	// DropoutVolts is the input − output difference (magnitude) at which
+	// the output first falls by 2 % as the supply is lowered, at normal load.
+	DropoutVolts Volts `toml:"dropout_volts" json:"dropout_volts"`
+}
+
 // MountEvidence is how the part is cooled.
 type MountEvidence struct {
 	HeatsinkCPerW   CPerW     `toml:"heatsink_c_per_w" json:"heatsink_c_per_w"`           // 0 = free air
@@ -102,6 +110,7 @@ type Evidence struct {
 	Bypass    *BypassEvidence        `toml:"bypass" json:"bypass,omitempty"`       // a resistor from input to output
 	Network   *NetworkEvidence       `toml:"network" json:"network,omitempty"`     // the divider on the common/ADJ lead
 	Booster   *BoosterEvidence       `toml:"booster" json:"booster,omitempty"`     // an external pass transistor
+	Bench     *BenchEvidence         `toml:"bench" json:"bench,omitempty"`         // a powered bench test
 	Mount     *MountEvidence         `toml:"mount" json:"mount,omitempty"`         // how the part is cooled
 
 	// File is the name the evidence was loaded from.

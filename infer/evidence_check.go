@@ -48,6 +48,9 @@ func (e *Evidence) Check(c *catalog.Catalog) error {
 	e.checkInput(k)
 	e.checkOutput(k)
 	e.checkNetwork(k)
+	if b := e.Bench; b != nil {
+		k.nonNeg("bench.dropout_volts", b.DropoutVolts.Set, b.DropoutVolts.V, 50, "V")
+	}
 	if m := e.Mount; m != nil {
 		k.nonNeg("mount.heatsink_c_per_w", m.HeatsinkCPerW.Set, m.HeatsinkCPerW.V, 1000, "°C/W")
 		if ins := insulators(); !ins.ok(m.Insulator) {

@@ -66,15 +66,21 @@ func nextMeasurements(c *catalog.Catalog, ev *Evidence, res *Result, n int) []Me
 	for i := range hs {
 		hs[i].Probability /= mass
 	}
+	// While the leader is under 95 %, something is always offered: the
+	// best of what is left, however little it is expected to tell.
+	floor := 0.01
+	if len(res.Candidates) > 0 && res.Candidates[0].Probability < 0.95 {
+		floor = 1e-6
+	}
 	var out []Measurement
 	for _, m := range asks(c, ev, hs) {
 		gain, joint := mutualInfo(hs, 0, m.predict)
-		if gain < 0.01 {
+		if gain < floor {
 			continue
 		}
 		a := m.Measurement
 		a.GainBits, a.Outcomes = gain, outcomeLines(joint, m.describe)
-		if a.Powered {
+		if a.Powered && a.Safety == "" {
 			a.Safety = poweredSafety
 		}
 		out = append(out, a)
@@ -92,8 +98,8 @@ type outcomeDist map[string]float64
 // wiringDist is the distribution of the wiring word of a lead of function fn.
 func wiringDist(f *catalog.Family, fn string) outcomeDist {
 	d := outcomeDist{}
-	for w, p := range wiringOf(f, fn) {
-		d[string(w)] = p
+	for i, p := range wiringOf(f, fn) {
+		d[string(wirings.words[i])] = p
 	}
 	return d
 }

@@ -103,6 +103,9 @@ func asks(c *catalog.Catalog, ev *Evidence, hs []Candidate) []measurement {
 	if tr := troughAsk(ev); tr != nil {
 		ms = append(ms, *tr)
 	}
+	if ev.Bench == nil || !ev.Bench.DropoutVolts.Set {
+		ms = append(ms, dropoutAsk(ev))
+	}
 	if ev.Package == "" && (ev.Outline == nil || ev.Outline.Leads == nil) {
 		ms = append(ms, packageAsk(hs))
 	}
@@ -238,6 +241,50 @@ func packageAsk(hs []Candidate) measurement {
 		},
 		describe: func(key string) string { return "a " + key },
 	}
+}
+
+// dropoutAsk offers the bench test that separates low-dropout parts from
+// classic ones: lower the input on a bench supply until the output falls.
+// A part drops out at about typicalHeadroom of its worst case (a PNP-pass
+// LDO at light load far less); a transistor follower as soon as its
+// collector nears its emitter.
+func dropoutAsk(ev *Evidence) measurement {
+	return measurement{
+		Measurement: Measurement{
+			Key: "bench.dropout_volts", Kind: AskNumber, Unit: "V", Powered: true,
+			Safety: "Bench test: unplug the equipment from the mains and discharge its filter capacitors before disconnecting anything; " +
+				"current-limit the bench supply to a little above the normal load; the part and its heat sink may be hot. Follow local codes and qualified practice.",
+			Measure: "where the output drops out (bench supply in place of the input, powered)",
+			Prompt: "Unplug the equipment from the mains. Disconnect the part's input from its supply and feed it from a current-limited bench supply " +
+				"(ground to board ground) set to the usual input, with the normal load connected. Lower the supply slowly, watching the output: " +
+				"write the input − output difference at which the output has fallen by 2 %. Under 1 V means a low-dropout part; about 2 V a classic one.",
+		},
+		predict: func(h Hypothesis) outcomeDist {
+			if !isRegulator(h) {
+				return outcomeDist{dropoutBucket(0.3): 1}
+			}
+			d := h.Family.HeadroomNeeded() * typicalHeadroom
+			if h.Family.Pass == "pnp" {
+				d *= math.Max(0.2, loadFraction(ev, h))
+			}
+			return outcomeDist{dropoutBucket(d): 1}
+		},
+		describe: func(key string) string { return "drops out at " + key },
+	}
+}
+
+func dropoutBucket(v float64) string {
+	switch {
+	case v < 0.5:
+		return "under 0.5 V"
+	case v < 1:
+		return "0.5 to 1 V"
+	case v < 1.5:
+		return "1 to 1.5 V"
+	case v < 2.2:
+		return "1.5 to 2.2 V"
+	}
+	return "above 2.2 V"
 }
 
 // troughAsk offers the scope measurement of the input's ripple trough, when

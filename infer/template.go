@@ -79,6 +79,9 @@ equipment = "what it is, which board"
 # transistor = "pnp"                # pnp | npn
 # r_sense_ohms = 0.33               # the resistor whose drop turns the transistor on
 
+# [bench]                           # a powered test: a current-limited bench supply in place of the input
+# dropout_volts = 1.8               # input − output when the output first falls 2 %, lowering the supply at normal load
+
 # [mount]
 # heatsink_c_per_w = 5.0            # 0 = free air
 # insulator = "mica"                # none | grease | mica | silicone | unknown

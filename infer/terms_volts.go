@@ -179,3 +179,37 @@ func loadFraction(ev *Evidence, h Hypothesis) float64 {
 	}
 	return 0
 }
+
+// termBenchDropout weighs a measured dropout (the input lowered on a bench
+// supply until the output falls) against the family's. A classic or
+// quasi-LDO part drops out between half its datasheet worst case and a
+// little above it (typical dropouts are 50–90 % of the maximum, see
+// typicalHeadroom); below half the typical figure it is impossible, as for
+// the headroom. A PNP-pass LDO's dropout shrinks with the load, so only its
+// upper bound counts.
+func termBenchDropout(sc *scene, h Hypothesis, _ voltsView, r *reasons) {
+	b := sc.ev.Bench
+	if b == nil || !b.DropoutVolts.Set || !isRegulator(h) {
+		return
+	}
+	need := h.Family.HeadroomNeeded()
+	if need <= 0 {
+		return
+	}
+	d := math.Abs(b.DropoutVolts.V)
+	lo, hi := 0.5*need, 1.15*need
+	pnp := h.Family.Pass == "pnp"
+	if pnp {
+		lo = 0
+	}
+	switch {
+	case !pnp && d < 0.5*need*typicalHeadroom:
+		r.veto("bench.dropout_volts", "the output held down to %.2f V of headroom, but this part drops out at about %.2f V (worst case %.2f V)", d, need*typicalHeadroom, need)
+	case d >= lo && d <= hi:
+		r.add("bench.dropout_volts", 0.8, 0.3, "drops out at %.2f V: this part's dropout is up to %.2f V", d, need)
+	case d < lo:
+		r.add("bench.dropout_volts", 0.8*math.Exp(-0.5*sq((lo-d)/(0.1*need)))+0.002, 0.3, "drops out at %.2f V, below this part's usual %.2f–%.2f V", d, lo, need)
+	default:
+		r.add("bench.dropout_volts", 0.8*math.Exp(-0.5*sq((d-hi)/(0.15*need)))+0.01, 0.3, "drops out at %.2f V, above this part's worst case %.2f V", d, need)
+	}
+}

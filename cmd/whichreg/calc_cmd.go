@@ -9,7 +9,7 @@ import (
 func newCalcCmd(app *App) *cobra.Command {
 	cmd := &cobra.Command{
 		Use:   "calc",
-		Short: "Bench calculations: rectifier, bypass booster, heat sink, divider, test load",
+		Short: "Bench calculations: rectifier, booster, heat sink, divider, load",
 		Long: `The electrical models behind the replacement checks, on their own. Values take
 SI prefixes and IEC 60062 RKM code: 4k7, 0R22, 2u2, 2200u, 330m, 1.6A.`,
 	}

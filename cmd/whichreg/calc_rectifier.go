@@ -32,7 +32,7 @@ func newCalcRectifierCmd(app *App, runF func(*calcRectifierOptions) error) *cobr
 	opts := &calcRectifierOptions{app: app}
 	cmd := &cobra.Command{
 		Use:   "rectifier",
-		Short: "Simulate a rectifier and filter capacitor to its steady state, with mains and load corners",
+		Short: "Simulate a rectifier and filter capacitor, with mains and load corners",
 		Long: `rectifier simulates the transformer secondary, rectifier diodes (1N4007 model),
 filter capacitor and load to the periodic steady state, at nominal mains and at
 every corner (mains low/high, load min/max, capacitor nominal/low).

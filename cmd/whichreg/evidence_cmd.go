@@ -46,16 +46,23 @@ func article(w string) string {
 
 // loadEvidence reads and checks an evidence file.
 func loadEvidence(app *App, c *catalog.Catalog, file string) (*infer.Evidence, error) {
+	ev, _, err := loadEvidenceSource(app, c, file)
+	return ev, err
+}
+
+// loadEvidenceSource is loadEvidence that also returns the file's text (the
+// record carries its comments).
+func loadEvidenceSource(app *App, c *catalog.Catalog, file string) (*infer.Evidence, []byte, error) {
 	data, err := app.readLimited(file, "evidence", 1<<20)
 	if err != nil {
 		if errors.Is(err, fs.ErrNotExist) {
-			return nil, ioError(err, "'whichreg evidence init FILE' writes a template to fill in")
+			return nil, nil, ioError(err, "'whichreg evidence init FILE' writes a template to fill in")
 		}
-		return nil, err
+		return nil, nil, err
 	}
 	ev, err := infer.LoadEvidence(displayName(file), data, c)
 	if err != nil {
-		return nil, inputError(err, "'whichreg evidence init' writes a template with every key")
+		return nil, nil, inputError(err, "'whichreg evidence init' writes a template with every key")
 	}
-	return ev, nil
+	return ev, data, nil
 }

@@ -5,31 +5,25 @@ import (
 	"math"
 	"strings"
 
-	"github.com/whichreg/whichreg/infer"
+	"github.com/whichreg/whichreg/infer/replace"
 )
 
 // inputFigure draws the regulator's input over two mains cycles at the worst
 // corner (low mains, full load, low capacitance), with the level the chosen
 // part needs (output plus dropout) and the margin marked, as SVG.
-func inputFigure(sres *infer.SwapResult, chosen *infer.Replacement) ([]byte, error) {
+func inputFigure(sres *replace.Result, chosen *replace.Replacement) ([]byte, error) {
 	cd := sres.Conditions
 	if cd.Rectifier == nil || cd.Corners == nil {
 		return nil, fmt.Errorf("the figure needs the rectifier: give [input] rectifier, secondary_vrms and filter_uf")
 	}
 	wc := cd.Corners.WorstTrough
-	r := *cd.Rectifier
-	r.VrmsV *= wc.Mains
-	r.CapF *= wc.CapFactor
-	r.Load = wc.Load
-	ts, vs, err := r.Waveform(2)
+	ts, vs, err := cd.Rectifier.At(wc).Waveform(2)
 	if err != nil {
 		return nil, err
 	}
 	need := 0.0
-	for _, ch := range chosen.Checks {
-		if ch.Check == "dropout" {
-			fmt.Sscanf(ch.Limit, "%f", &need)
-		}
+	if ch := chosen.Check(replace.CheckDropout); ch != nil && ch.Limit != nil {
+		need = *ch.Limit
 	}
 	thr := cd.VoutV + need
 	lo, hi := thr, vs[0]

@@ -26,7 +26,7 @@ func newInferCmd(app *App, runF func(*inferOptions) error) *cobra.Command {
 	opts := &inferOptions{app: app}
 	cmd := &cobra.Command{
 		Use:   "infer EVIDENCE.toml|-",
-		Short: "Rank what an unmarked regulator could be, with probabilities and reasons",
+		Short: "Rank what an unmarked regulator could be, with the reasons",
 		Long: `infer ranks every (family, outline, output voltage) in the catalog against
 what you measured. Each candidate's score is the sum of its reasons: a prior
 (commonness, era) and one term per piece of evidence, as a natural-log
@@ -213,28 +213,6 @@ func inferDocOf(res *infer.Result, top int) inferDoc {
 	return d
 }
 
-// recordIdentJSON is the identification as the record writes it (until
-// the record has its own package and document).
-type recordIdentJSON struct {
-	Candidates   []candidateJSON     `json:"candidates"`
-	NotInCatalog float64             `json:"not_in_catalog"`
-	Others       float64             `json:"others"`
-	Conflicts    []string            `json:"conflicts"`
-	Next         []infer.Measurement `json:"next"`
-	PriorOnly    bool                `json:"prior_only"`
-	Assumptions  []string            `json:"assumptions"`
-}
-
-// candidateJSON is one candidate of the record's identification.
-type candidateJSON struct {
-	Family      string         `json:"family"`
-	Package     string         `json:"package"`
-	Vout        float64        `json:"vout"`
-	Probability float64        `json:"probability"`
-	Score       float64        `json:"score"`
-	Reasons     []infer.Reason `json:"reasons"`
-}
-
 func signedVout(h infer.Hypothesis) float64 {
 	if h.Family.Negative() {
 		return -h.VoutV
@@ -245,35 +223,4 @@ func signedVout(h infer.Hypothesis) float64 {
 func round(x float64, digits int) float64 {
 	p := math.Pow(10, float64(digits))
 	return math.Round(x*p) / p
-}
-
-func recordIdentOf(res *infer.Result, top int) recordIdentJSON {
-	j := recordIdentJSON{NotInCatalog: round(res.NotInCatalog, 6), Conflicts: res.Conflicts, Next: res.Next,
-		PriorOnly: res.PriorOnly, Assumptions: res.Assumptions, Candidates: []candidateJSON{}}
-	for i, c := range res.Candidates {
-		if math.IsInf(c.Score, -1) {
-			continue // ruled out: JSON has no -Inf (it is counted in nothing)
-		}
-		if top > 0 && i >= top {
-			j.Others += c.Probability
-			continue
-		}
-		rs := make([]infer.Reason, len(c.Reasons))
-		for k, r := range c.Reasons {
-			rs[k] = infer.Reason{Evidence: r.Evidence, Weight: round(r.Weight, 4), Text: r.Text}
-		}
-		j.Candidates = append(j.Candidates, candidateJSON{c.Family.ID, c.Package.Outline, signedVout(c.Hypothesis),
-			round(c.Probability, 6), round(c.Score, 4), rs})
-	}
-	j.Others = round(j.Others, 6)
-	if j.Conflicts == nil {
-		j.Conflicts = []string{}
-	}
-	if j.Next == nil {
-		j.Next = []infer.Measurement{}
-	}
-	if j.Assumptions == nil {
-		j.Assumptions = []string{}
-	}
-	return j
 }

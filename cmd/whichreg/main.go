@@ -3,6 +3,8 @@
 // circuit, and writes the decision down. Run "whichreg --help" for the commands.
 package main
 
+//go:generate go test -run ^TestManPages$ . -args -update-man
+
 import "os"
 
 func main() { os.Exit(Main()) }

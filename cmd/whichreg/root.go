@@ -186,9 +186,9 @@ written into every record.`,
 	root.SetErr(app.IO.ErrOut)
 	root.SetFlagErrorFunc(func(c *cobra.Command, err error) error { return &flagError{err: err} })
 	pf := root.PersistentFlags()
-	pf.StringArrayVar(&app.CatalogFiles, "catalog", nil, "add a user catalog `FILE` on top of the built-in one (repeatable; - reads stdin)")
-	pf.BoolVar(&app.NoUserCatalog, "no-user-catalog", false, "leave out the catalog files of the configuration directory ('whichreg catalog paths')")
-	pf.IntVar(&app.widthFlag, "width", 0, "fit text output to `N` columns (default: the terminal's width, 80 when piped)")
+	pf.StringArrayVar(&app.CatalogFiles, "catalog", nil, "add a user catalog `FILE` (repeatable; - is stdin)")
+	pf.BoolVar(&app.NoUserCatalog, "no-user-catalog", false, "leave out the user catalogs ('catalog paths')")
+	pf.IntVar(&app.widthFlag, "width", 0, "fit text to `N` columns (default: the terminal, or 80)")
 	root.PersistentPreRunE = func(cmd *cobra.Command, args []string) error {
 		if app.widthFlag != 0 && app.widthFlag < minWidth {
 			return flagErrorf("--width %d is too narrow: give %d or more", app.widthFlag, minWidth)
@@ -208,6 +208,7 @@ written into every record.`,
 	root.SetHelpCommandGroupID(groupTools)
 	root.SetCompletionCommandGroupID(groupTools)
 	typedUsageErrors(root)
+	addCompletions(root, app)
 	return root
 }
 

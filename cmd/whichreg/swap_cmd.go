@@ -1,10 +1,10 @@
 package main
 
 import (
+	"errors"
 	"fmt"
 	"io"
 	"math"
-	"strconv"
 	"strings"
 
 	"github.com/spf13/cobra"
@@ -12,6 +12,7 @@ import (
 	"github.com/whichreg/whichreg/catalog"
 	"github.com/whichreg/whichreg/infer"
 	"github.com/whichreg/whichreg/infer/circuit"
+	"github.com/whichreg/whichreg/infer/replace"
 )
 
 type swapOptions struct {
@@ -27,7 +28,7 @@ func newSwapCmd(app *App, runF func(*swapOptions) error) *cobra.Command {
 	opts := &swapOptions{app: app}
 	cmd := &cobra.Command{
 		Use:   "swap EVIDENCE.toml",
-		Short: "Rank current-production replacements, each checked against the real circuit",
+		Short: "Rank current-production replacements checked against the circuit",
 		Long: `swap takes the original from infer's leader (or from --original) and checks
 every current-production candidate in every package: outline and footprint,
 lead-by-lead function, tab potential against the mounting, polarity, output
@@ -56,81 +57,42 @@ work; unsuitable ones are shown with --all or when nothing else fits.
 	return cmd
 }
 
-// parseOriginal resolves ID[:OUTLINE[:VOUT]] against the catalog.
-func parseOriginal(c *catalog.Catalog, spec string) (infer.Hypothesis, error) {
-	parts := strings.SplitN(spec, ":", 3)
-	f := c.Family(parts[0])
-	if f == nil {
-		return infer.Hypothesis{}, inputError(fmt.Errorf("--original: no family %q in the catalog", parts[0]), suggestIDs(c, parts[0]))
-	}
-	p := &f.Packages[0]
-	if len(parts) > 1 && parts[1] != "" {
-		p = f.Package(c, parts[1])
-		if p == nil {
-			return infer.Hypothesis{}, inputError(fmt.Errorf("--original: %s does not come in %q (it comes in %s)", f.ID, parts[1], packagesText(f)))
-		}
-	}
-	h := infer.Hypothesis{Family: f, Package: p, Outline: c.Outline(p.Outline)}
-	if len(parts) > 2 {
-		v, err := strconv.ParseFloat(strings.TrimSuffix(parts[2], "V"), 64)
-		if err != nil || v == 0 {
-			return h, inputError(fmt.Errorf("--original: %q is not an output voltage", parts[2]))
-		}
-		if v < 0 {
-			v = -v
-		}
-		h.VoutV = v
-	} else if !f.Adjustable() && len(f.OutputsV) == 1 {
-		h.VoutV = f.OutputsV[0]
-	}
-	return h, nil
-}
-
-// resolveOriginal returns the original: named, or infer's leader.
-func resolveOriginal(c *catalog.Catalog, ev *infer.Evidence, spec string) (infer.Hypothesis, float64, bool, *infer.Result, error) {
+// resolveOriginal returns identification's result and the original: named
+// with spec (ID[:OUTLINE[:VOUT]]), or identification's leader.
+func resolveOriginal(c *catalog.Catalog, ev *infer.Evidence, spec string) (infer.Original, *infer.Result, error) {
 	res, err := infer.Identify(c, ev, infer.Options{})
 	if err != nil {
-		return infer.Hypothesis{}, 0, false, nil, inputError(err)
+		return infer.Original{}, nil, inputError(err)
 	}
+	var named *infer.Hypothesis
 	if spec != "" {
-		h, err := parseOriginal(c, spec)
+		h, err := infer.ParseVariant(c, spec)
 		if err != nil {
-			return h, 0, false, res, err
-		}
-		if !h.Family.Adjustable() && h.VoutV == 0 {
-			// Take the voltage infer likes best for this family and package.
-			for _, cd := range res.Candidates {
-				if cd.Family == h.Family && cd.Package == h.Package {
-					h.VoutV = cd.VoutV
-					break
-				}
+			if id, _, _ := strings.Cut(spec, ":"); c.Family(id) == nil {
+				return infer.Original{}, res, inputError(fmt.Errorf("--original: %v", err), suggestIDs(c, id))
 			}
+			return infer.Original{}, res, inputError(fmt.Errorf("--original: %v", err))
 		}
-		if h.Family.Adjustable() {
-			for _, cd := range res.Candidates {
-				if cd.Family == h.Family && cd.Package == h.Package {
-					h.VoutV = cd.VoutV
-					break
-				}
-			}
-		}
-		return h, 1, false, res, nil
+		named = &h
 	}
-	lead := res.Candidates[0]
-	if res.NotInCatalog > lead.Probability {
-		return infer.Hypothesis{}, 0, true, res, inputError(fmt.Errorf("the evidence fits nothing in the catalog (not in the catalog %.0f %%, leader %s %.0f %%)", 100*res.NotInCatalog, lead.Label(), 100*lead.Probability),
-			"name the original with --original ID[:OUTLINE[:VOUT]]")
+	orig, err := infer.ChooseOriginal(res, named)
+	switch {
+	case errors.Is(err, infer.ErrNotInCatalog):
+		return orig, res, inputError(err, "name the original with --original ID[:OUTLINE[:VOUT]]")
+	case err != nil:
+		return orig, res, inputError(err)
 	}
-	return lead.Hypothesis, lead.Probability, true, res, nil
+	return orig, res, nil
 }
 
-// swapState is what swap and record share: the catalog, the evidence, the
-// identification, the original and the checked replacements.
+// swapState is what swap and record share: the catalog, the evidence (and
+// its source text), the identification, and the checked replacements.
 type swapState struct {
 	cat  *catalog.Catalog
 	ev   *infer.Evidence
+	src  []byte
 	ires *infer.Result
-	sres *infer.SwapResult
+	sres *replace.Result
 }
 
 func prepareSwap(app *App, file, original string, all bool) (*swapState, error) {
@@ -138,19 +100,19 @@ func prepareSwap(app *App, file, original string, all bool) (*swapState, error) 
 	if err != nil {
 		return nil, err
 	}
-	ev, err := loadEvidence(app, c, file)
+	ev, src, err := loadEvidenceSource(app, c, file)
 	if err != nil {
 		return nil, err
 	}
-	orig, prob, fromInfer, ires, err := resolveOriginal(c, ev, original)
+	orig, ires, err := resolveOriginal(c, ev, original)
 	if err != nil {
 		return nil, err
 	}
-	sres, err := infer.Swap(c, ev, orig, prob, fromInfer, infer.SwapOptions{All: all})
+	sres, err := replace.Swap(c, ev, orig, replace.Options{All: all})
 	if err != nil {
-		return nil, inputError(fmt.Errorf("%s: %v", file, err))
+		return nil, inputError(fmt.Errorf("%s: %w", file, err))
 	}
-	return &swapState{c, ev, ires, sres}, nil
+	return &swapState{c, ev, src, ires, sres}, nil
 }
 
 func swapRun(o *swapOptions) error {
@@ -173,11 +135,11 @@ func swapRun(o *swapOptions) error {
 
 // swapJSON is the JSON contract of `whichreg swap` (issue #5).
 type swapJSON struct {
-	Original     originalJSON      `json:"original"`
-	Replacements []replacementJSON `json:"replacements"`
-	Assumptions  []string          `json:"assumptions"`
-	Conditions   infer.Conditions  `json:"conditions"`
-	Hidden       int               `json:"hidden"`
+	Original     originalJSON       `json:"original"`
+	Replacements []replacementJSON  `json:"replacements"`
+	Assumptions  []string           `json:"assumptions"`
+	Conditions   replace.Conditions `json:"conditions"`
+	Hidden       int                `json:"hidden"`
 }
 
 type originalJSON struct {
@@ -189,13 +151,15 @@ type originalJSON struct {
 }
 
 type replacementJSON struct {
-	Family   string        `json:"family"`
-	Package  string        `json:"package"`
-	Vout     float64       `json:"vout"`
-	Verdict  string        `json:"verdict"`
-	Deciding string        `json:"deciding"`
-	Checks   []infer.Check `json:"checks"`
-	Install  []string      `json:"install"`
+	Family   string            `json:"family"`
+	Package  string            `json:"package"`
+	Vout     float64           `json:"vout"`
+	Verdict  replace.Verdict   `json:"verdict"`  // drop-in, needs-work or unsuitable
+	Deciding replace.CheckName `json:"deciding"` // the check that decides the verdict
+	// DecidingWhy says which rule chose it: fails, needs work or smallest margin.
+	DecidingWhy string          `json:"deciding_why"`
+	Checks      []replace.Check `json:"checks"`
+	Install     []string        `json:"install"`
 }
 
 // sig rounds x to 6 significant figures, so that JSON output does not carry
@@ -215,7 +179,7 @@ func roundResult(r circuit.Result) circuit.Result {
 }
 
 // roundConditions rounds the worst-corner numbers for output.
-func roundConditions(c infer.Conditions) infer.Conditions {
+func roundConditions(c replace.Conditions) replace.Conditions {
 	c.VoutV, c.TroughV, c.PeakV, c.HotInV = sig(c.VoutV), sig(c.TroughV), sig(c.PeakV), sig(c.HotInV)
 	if c.Corners != nil {
 		cr := *c.Corners
@@ -230,52 +194,54 @@ func roundConditions(c infer.Conditions) infer.Conditions {
 	return c
 }
 
-func swapJSONOf(res *infer.SwapResult) swapJSON {
+func swapJSONOf(res *replace.Result) swapJSON {
 	j := swapJSON{
-		Original:    originalJSON{res.Original.Family.ID, res.Original.Package.Outline, signedVout(res.Original), round(res.Probability, 6), res.FromInfer},
+		Original:    originalJSON{res.Original.Family.ID, res.Original.Package.Outline, signedVout(res.Original.Hypothesis), round(res.Original.Probability, 6), !res.Original.Named},
 		Assumptions: res.Assumptions, Conditions: roundConditions(res.Conditions), Hidden: res.Hidden, Replacements: []replacementJSON{},
 	}
 	if j.Assumptions == nil {
 		j.Assumptions = []string{}
 	}
 	for _, r := range res.Replacements {
-		cs := make([]infer.Check, len(r.Checks))
+		cs := make([]replace.Check, len(r.Checks))
 		for i, ch := range r.Checks {
 			ch.Margin = round(ch.Margin, 4)
+			for _, p := range []**float64{&ch.Value, &ch.Limit} {
+				if *p != nil {
+					v := sig(**p)
+					*p = &v
+				}
+			}
 			cs[i] = ch
 		}
-		j.Replacements = append(j.Replacements, replacementJSON{r.Family.ID, r.Package.Outline, signedVout(r.Hypothesis), r.Verdict, r.Deciding, cs, r.Install})
+		j.Replacements = append(j.Replacements, replacementJSON{r.Family.ID, r.Package.Outline, signedVout(r.Hypothesis), r.Verdict, r.Deciding, r.DecidingWhy, cs, r.Install})
 	}
 	return j
 }
 
-func originalLine(res *infer.SwapResult) string {
-	if res.FromInfer {
-		s := fmt.Sprintf("original: %s, infer's leader at %s", res.Original.Label(), pct(res.Probability))
-		if res.Probability < 0.6 {
+func originalLine(res *replace.Result) string {
+	o := res.Original
+	if !o.Named {
+		s := fmt.Sprintf("original: %s, infer's leader at %s", o.Label(), pct(o.Probability))
+		if o.Probability < 0.6 {
 			s += " — below 60 %: identification is uncertain; make the suggested measurements or name it with --original"
 		}
 		return s
 	}
-	return fmt.Sprintf("original: %s (named with --original)", res.Original.Label())
+	return fmt.Sprintf("original: %s (named with --original)", o.Label())
 }
 
-func writeSwapText(w io.Writer, res *infer.SwapResult, details int) {
+func writeSwapText(w io.Writer, res *replace.Result, details int) {
 	cd := res.Conditions
-	sign := ""
-	if res.Original.Family.Negative() {
-		sign = "-"
-	}
+	sign := res.Original.Family.SignText()
 	fmt.Fprintln(w, originalLine(res))
 	fmt.Fprintf(w, "circuit: %s%.2f V out, %.3g–%.3g A; input %s%.2f V at its lowest (%s), %s%.1f V at its highest (%s)\n",
 		sign, cd.VoutV, cd.LoadMinA, cd.LoadMaxA, sign, cd.TroughV, cd.TroughAt, sign, cd.PeakV, cd.PeakAt)
 	fmt.Fprintln(w)
 	for i, r := range res.Replacements {
 		dec := ""
-		for _, ch := range r.Checks {
-			if ch.Check == r.Deciding {
-				dec = ch.Check + ": " + ch.Text
-			}
+		if ch := r.Check(r.Deciding); ch != nil {
+			dec = fmt.Sprintf("%s %s: %s", ch.Name, r.DecidingWhy, ch.Text)
 		}
 		fmt.Fprintf(w, "%2d. %-26s %-11s %s\n", i+1, r.Label(), r.Verdict, dec)
 	}
@@ -291,7 +257,7 @@ func writeSwapText(w io.Writer, res *infer.SwapResult, details int) {
 		}
 		fmt.Fprintf(w, "\n%s — %s\n", r.Label(), r.Verdict)
 		for _, ch := range r.Checks {
-			fmt.Fprintf(w, "  %-4s %-9s %-24s limit %-22s margin %+6.2f  %s\n", ch.Status, ch.Check, ch.Value, ch.Limit, ch.Margin, ch.Text)
+			fmt.Fprintf(w, "  %-4s %-9s %-24s limit %-22s margin %+6.2f  %s\n", ch.Status, ch.Name, ch.ValueText, ch.LimitText, ch.Margin, ch.Text)
 		}
 		for _, in := range r.Install {
 			fmt.Fprintf(w, "  - %s\n", in)
@@ -301,10 +267,10 @@ func writeSwapText(w io.Writer, res *infer.SwapResult, details int) {
 	fmt.Fprintln(w, "\nSafety: unplug and discharge the filter capacitors before desoldering; tabs and heat sinks may be live or hot. Confirm against the maker's datasheet.")
 }
 
-func writeSwapMarkdown(w io.Writer, res *infer.SwapResult, details int) {
+func writeSwapMarkdown(w io.Writer, res *replace.Result, details int) {
 	fmt.Fprintf(w, "# Replacements\n\n%s\n\n| # | candidate | verdict | deciding check |\n| ---: | --- | --- | --- |\n", mdEscape(originalLine(res)))
 	for i, r := range res.Replacements {
-		fmt.Fprintf(w, "| %d | %s | %s | %s |\n", i+1, r.Label(), r.Verdict, r.Deciding)
+		fmt.Fprintf(w, "| %d | %s | %s | %s (%s) |\n", i+1, r.Label(), r.Verdict, r.Deciding, r.DecidingWhy)
 	}
 	for i, r := range res.Replacements {
 		if i >= details {
@@ -315,9 +281,9 @@ func writeSwapMarkdown(w io.Writer, res *infer.SwapResult, details int) {
 	}
 }
 
-func writeCheckTable(w io.Writer, r infer.Replacement) {
+func writeCheckTable(w io.Writer, r replace.Replacement) {
 	fmt.Fprintln(w, "| check | value | limit | margin | status | why |\n| --- | --- | --- | ---: | --- | --- |")
 	for _, ch := range r.Checks {
-		fmt.Fprintf(w, "| %s | %s | %s | %+.2f | %s | %s |\n", ch.Check, mdEscape(ch.Value), mdEscape(ch.Limit), ch.Margin, ch.Status, mdEscape(ch.Text))
+		fmt.Fprintf(w, "| %s | %s | %s | %+.2f | %s | %s |\n", ch.Name, mdEscape(ch.ValueText), mdEscape(ch.LimitText), ch.Margin, ch.Status, mdEscape(ch.Text))
 	}
 }

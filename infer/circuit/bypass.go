@@ -69,3 +69,36 @@ func (b Bypass) Solve() (BypassResult, error) {
 	}
 	return r, nil
 }
+
+// RegulatorPowerMax returns the regulator's greatest dissipation, watts, at
+// full load (LoadMaxA) over an input from VinMinV to VinMaxV (for heat, the
+// mean input at low and high mains), and the input where it occurs. With
+// the headroom h = Vin − Vout the regulator carries I − h/R, so
+//
+//	P(h) = h·(I − h/R) + Vin·Ignd
+//
+// which rises to its largest at h = I·R/2 and falls beyond: the worst case
+// can lie inside the range, not at high mains (derived from the current
+// share of methods.md §4.4). ignA is the ground current.
+func (b Bypass) RegulatorPowerMax(ignA float64) (w, atV float64) {
+	p := func(vin float64) float64 {
+		h := math.Max(0, vin-b.VoutV)
+		ireg := b.LoadMaxA
+		if b.ROhm > 0 {
+			ireg = math.Max(0, b.LoadMaxA-h/b.ROhm)
+		}
+		return h*ireg + vin*ignA
+	}
+	cands := []float64{b.VinMinV, b.VinMaxV}
+	if b.ROhm > 0 {
+		if v := b.VoutV + b.LoadMaxA*b.ROhm/2; v > b.VinMinV && v < b.VinMaxV {
+			cands = append(cands, v)
+		}
+	}
+	for _, v := range cands {
+		if x := p(v); x > w || atV == 0 {
+			w, atV = x, v
+		}
+	}
+	return w, atV
+}

@@ -31,6 +31,13 @@ type DividerChoice struct {
 	SpreadLowV  float64 `json:"spread_low_v"`  // output with the least common-lead current
 	SpreadHighV float64 `json:"spread_high_v"` // output with the most
 	DividerA    float64 `json:"divider_a"`     // current through R1 (Vref/R1)
+	R1W         float64 `json:"r1_w"`          // R1's dissipation: Vref²/R1
+	R2W         float64 `json:"r2_w"`          // R2's dissipation at the most common-lead current
+	R1RatingW   float64 `json:"r1_rating_w"`   // a resistor rating for R1 (at least twice its dissipation)
+	R2RatingW   float64 `json:"r2_rating_w"`   // and for R2
+	// Trimmer says a trimmer is needed: the pair's error is beyond the
+	// part's own tolerance.
+	Trimmer bool `json:"trimmer"`
 }
 
 // DividerSpec describes what [ChooseDivider] must meet.
@@ -40,30 +47,62 @@ type DividerSpec struct {
 	ITypA    float64   // typical ADJ / quiescent current
 	IMinA    float64   // least ADJ / quiescent current (0 if unknown)
 	IMaxA    float64   // greatest ADJ / quiescent current
-	MinLoadA float64   // the divider current must be at least this (the part's minimum load)
+	MinLoadA float64   // the divider current must be at least this (the part's minimum load; 0 = DefaultMinLoadA)
+	MaxLoadA float64   // and at most this (0 = DividerSpan × MinLoadA)
 	VbottomV float64   // return rail
 	Series   []float64 // resistor series (default E24)
-	MinR1Ohm float64   // smallest R1 considered (default 10 Ω)
-	MaxR1Ohm float64   // largest R1 considered (default 10 kΩ)
+	// Tolerance is the part's own output tolerance, fraction: pairs within
+	// it count as good enough, and beyond it a trimmer is suggested
+	// (0 = 2 %).
+	Tolerance float64
 }
 
-// ChooseDivider picks a pair from the series with the divider current at or
-// above MinLoadA: among the pairs within 1 % of the target (or as close as
-// the closest pair, if none is that close) the one with the largest R1, which
-// wastes least current. It returns an
-// error when the target is at or below Vref (plus the rail), or when no pair
-// meets the minimum load.
+// DefaultMinLoadA is the divider current taken when the part's minimum load
+// is not known: 5 mA, the smaller of the classic adjustables' figures
+// (LM317L 5 mA; LM317 3.5 mA typical, 10 mA maximum).
+const DefaultMinLoadA = 5e-3
+
+// DividerSpan is how far above the minimum load the divider current may go:
+// enough room for a close E-series pair, while the divider wastes little
+// (the LM317 datasheet's 240 Ω gives 5.2 mA against 3.5 mA typical; common
+// practice, no source for the factor).
+const DividerSpan = 2.5
+
+// ratings are the usual resistor power ratings, watts.
+var ratings = []float64{0.125, 0.25, 0.5, 1, 2, 3, 5, 10}
+
+// rating returns the smallest usual rating at least twice w (the common
+// derating to half power; common practice, no source).
+func rating(w float64) float64 {
+	for _, r := range ratings {
+		if r >= 2*w {
+			return r
+		}
+	}
+	return math.Ceil(2 * w)
+}
+
+// ChooseDivider picks a pair from the series whose divider current Vref/R1
+// lies between the minimum load and DividerSpan times it: among the pairs
+// whose error is within the part's tolerance (or as close as the closest
+// pair, if none is), the one with the largest R1, which wastes least
+// current. It gives each resistor's dissipation and a rating, and asks for
+// a trimmer when even the best pair misses by more than the tolerance. It
+// returns an error when the target is at or below Vref (plus the rail).
 func ChooseDivider(s DividerSpec) (DividerChoice, error) {
 	if s.Series == nil {
 		s.Series = E24
 	}
-	if s.MinR1Ohm == 0 {
-		s.MinR1Ohm = 10
+	if s.MinLoadA == 0 {
+		s.MinLoadA = DefaultMinLoadA
 	}
-	if s.MaxR1Ohm == 0 {
-		s.MaxR1Ohm = 10e3
+	if s.MaxLoadA == 0 {
+		s.MaxLoadA = DividerSpan * s.MinLoadA
 	}
-	for _, v := range []float64{s.TargetV, s.VrefV, s.ITypA, s.IMinA, s.IMaxA, s.MinLoadA, s.VbottomV} {
+	if s.Tolerance == 0 {
+		s.Tolerance = 0.02
+	}
+	for _, v := range []float64{s.TargetV, s.VrefV, s.ITypA, s.IMinA, s.IMaxA, s.MinLoadA, s.MaxLoadA, s.VbottomV, s.Tolerance} {
 		if math.IsNaN(v) || math.IsInf(v, 0) {
 			return DividerChoice{}, fmt.Errorf("divider: values must be finite")
 		}
@@ -71,47 +110,53 @@ func ChooseDivider(s DividerSpec) (DividerChoice, error) {
 	if !(s.VrefV > 0) {
 		return DividerChoice{}, fmt.Errorf("divider: the reference must be positive")
 	}
+	if !(s.MinLoadA > 0) || s.MaxLoadA < s.MinLoadA {
+		return DividerChoice{}, fmt.Errorf("divider: the current window %g to %g A is empty", s.MinLoadA, s.MaxLoadA)
+	}
 	rise := s.TargetV - s.VbottomV
 	if rise <= s.VrefV {
 		return DividerChoice{}, fmt.Errorf("target %g V is not above the reference %g V (plus the return rail %g V): no divider can give it", s.TargetV, s.VrefV, s.VbottomV)
 	}
-	vals := Values(s.Series, 1, 10e6)
+	vals := Values(s.Series, 0.1, 10e6)
 	var all []DividerChoice
-	for _, r1 := range Values(s.Series, s.MinR1Ohm, s.MaxR1Ohm) {
-		if s.VrefV/r1 < s.MinLoadA {
-			continue
-		}
+	for _, r1 := range Values(s.Series, s.VrefV/s.MaxLoadA*(1-1e-9), s.VrefV/s.MinLoadA*(1+1e-9)) {
 		ideal := (rise - s.VrefV) / (s.VrefV/r1 + s.ITypA)
 		lo, hi, ok := Nearest(vals, ideal)
 		if !ok {
 			continue
 		}
 		for _, r2 := range []float64{lo, hi} {
-			v, _ := DividerVout(s.VrefV, s.ITypA, r1, r2, s.VbottomV)
-			vl, _ := DividerVout(s.VrefV, s.IMinA, r1, r2, s.VbottomV)
-			vh, _ := DividerVout(s.VrefV, s.IMaxA, r1, r2, s.VbottomV)
-			all = append(all, DividerChoice{R1Ohm: r1, R2Ohm: r2, VoutV: v, ErrorV: v - s.TargetV, SpreadLowV: vl, SpreadHighV: vh, DividerA: s.VrefV / r1})
+			all = append(all, s.pair(r1, r2))
 		}
 	}
-	found := len(all) > 0
+	if len(all) == 0 {
+		return DividerChoice{}, fmt.Errorf("no %d-value series resistor gives %g to %g mA through R1 with Vref %g V", len(s.Series), s.MinLoadA*1e3, s.MaxLoadA*1e3, s.VrefV)
+	}
+	minErr := math.Inf(1)
+	for _, c := range all {
+		minErr = math.Min(minErr, math.Abs(c.ErrorV))
+	}
+	bar := math.Max(minErr, s.Tolerance*math.Abs(s.TargetV))
 	var best DividerChoice
-	if found {
-		// The closest pair sets the bar; within 1 % of the target (or of
-		// that best error) the pair with the largest R1 wastes least current.
-		minErr := math.Inf(1)
-		for _, c := range all {
-			minErr = math.Min(minErr, math.Abs(c.ErrorV))
-		}
-		bar := math.Max(minErr, 0.01*math.Abs(s.TargetV))
-		for _, c := range all {
-			if math.Abs(c.ErrorV) <= bar+1e-12 && (best.R1Ohm == 0 || c.R1Ohm > best.R1Ohm ||
-				(c.R1Ohm == best.R1Ohm && math.Abs(c.ErrorV) < math.Abs(best.ErrorV))) {
-				best = c
-			}
+	for _, c := range all {
+		if math.Abs(c.ErrorV) <= bar+1e-12 && (best.R1Ohm == 0 || c.R1Ohm > best.R1Ohm ||
+			(c.R1Ohm == best.R1Ohm && math.Abs(c.ErrorV) < math.Abs(best.ErrorV))) {
+			best = c
 		}
 	}
-	if !found {
-		return DividerChoice{}, fmt.Errorf("no R1 from %g to %g Ω draws the minimum load %g mA", s.MinR1Ohm, s.MaxR1Ohm, s.MinLoadA*1e3)
-	}
+	best.Trimmer = math.Abs(best.ErrorV) > s.Tolerance*math.Abs(s.TargetV)
 	return best, nil
+}
+
+// pair evaluates R1 over R2 against the spec.
+func (s DividerSpec) pair(r1, r2 float64) DividerChoice {
+	v, _ := DividerVout(s.VrefV, s.ITypA, r1, r2, s.VbottomV)
+	vl, _ := DividerVout(s.VrefV, s.IMinA, r1, r2, s.VbottomV)
+	vh, _ := DividerVout(s.VrefV, s.IMaxA, r1, r2, s.VbottomV)
+	i1 := s.VrefV / r1
+	i2 := i1 + math.Max(s.IMaxA, s.ITypA)
+	c := DividerChoice{R1Ohm: r1, R2Ohm: r2, VoutV: v, ErrorV: v - s.TargetV, SpreadLowV: vl, SpreadHighV: vh, DividerA: i1,
+		R1W: i1 * i1 * r1, R2W: i2 * i2 * r2}
+	c.R1RatingW, c.R2RatingW = rating(c.R1W), rating(c.R2W)
+	return c
 }

@@ -1,0 +1,267 @@
+package replace
+
+import (
+	"fmt"
+	"math"
+	"strings"
+
+	"github.com/whichreg/whichreg/catalog"
+	"github.com/whichreg/whichreg/infer"
+	"github.com/whichreg/whichreg/infer/circuit"
+)
+
+// thermalPath returns the junction-to-ambient resistance a candidate gets
+// here and the words for it: surface-mount parts by their datasheet θJA on
+// the board copper (never the old heat sink); a tab or can on the old heat
+// sink through θJC + θCS + θSA; anything else in free air by θJA.
+func thermalPath(in *Input, c *cand) (float64, string) {
+	o, p, cd := c.Outline, c.Package, &in.Cond
+	switch {
+	case c.Family.Switching():
+		return p.ThetaJA, fmt.Sprintf("free air, θJA %g °C/W", p.ThetaJA)
+	case o != nil && o.SMD:
+		return p.ThetaJA, fmt.Sprintf("θJA %g °C/W on the board copper the datasheet assumes (about 1 in² of 1 oz copper; the old heat sink is not used)", p.ThetaJA)
+	case cd.HeatsinkCW > 0 && o != nil && o.Isolated:
+		jc := p.ThetaJC
+		if jc == 0 {
+			jc = p.ThetaJA / 4 // isolated packages without a θJC: a quarter of θJA (from memory)
+		}
+		cs, _ := circuit.CaseToSink("none", false)
+		return jc + cs + cd.HeatsinkCW, fmt.Sprintf("θJC %g (isolated body) + θCS %g + θSA %g °C/W", jc, cs, cd.HeatsinkCW)
+	case cd.HeatsinkCW > 0 && o != nil && (o.Tab || o.MetalCan):
+		ins := cd.Insulator
+		if c.kit {
+			ins = "mica kit to be fitted"
+		}
+		return p.ThetaJC + c.thetaCS + cd.HeatsinkCW, fmt.Sprintf("θJC %g + θCS %g (%s) + θSA %g °C/W", p.ThetaJC, c.thetaCS, ins, cd.HeatsinkCW)
+	}
+	return p.ThetaJA, fmt.Sprintf("free air, θJA %g °C/W", p.ThetaJA)
+}
+
+func checkThermal(in *Input, c *cand) (Check, bool) {
+	f, cd := c.Family, &in.Cond
+	theta, path := thermalPath(in, c)
+	tj := cd.AmbientC + c.powerW*theta
+	m := (f.TjMaxC - tj) / math.Max(1, f.TjMaxC-cd.AmbientC)
+	st := Pass
+	switch {
+	case tj > f.TjMaxC:
+		st = Fail
+	case tj > f.TjMaxC-15:
+		st = Warn
+	}
+	ch := Check{Name: CheckThermal, Unit: "°C", Value: num(tj), Limit: num(f.TjMaxC), Margin: m, Status: st,
+		ValueText: fmt.Sprintf("Tj %.0f °C", tj), LimitText: fmt.Sprintf("%g °C", f.TjMaxC)}
+	where := "at high mains and full load"
+	if cd.BypassOhm > 0 {
+		where = fmt.Sprintf("at full load with %.2f V in, the worst point of the bypass resistor's share", c.atV)
+	}
+	ch.Text = fmt.Sprintf("%.2f W %s through %s, from %g °C ambient", c.powerW, where, path, cd.AmbientC)
+	smd := c.Outline != nil && c.Outline.SMD
+	if st == Fail && c.powerW > 0 && !smd && !f.Switching() && c.Outline != nil && (c.Outline.Tab || c.Outline.MetalCan) {
+		if sa, err := circuit.RequiredThetaSA(c.powerW, cd.AmbientC, f.TjMaxC-15, c.Package.ThetaJC, c.thetaCS); err == nil && sa > 0 {
+			ch.Text += fmt.Sprintf("; a heat sink of %.2g °C/W or better would do", sa)
+		}
+		if in.Ev.Mount == nil {
+			// Nothing says how the running original is cooled: it cannot
+			// have run in free air, so this is a question, not a verdict.
+			ch.Status = Warn
+			ch.Text += "; the evidence does not describe the mounting, and the original cannot have run like this in free air: give [mount] heatsink_c_per_w"
+		}
+	}
+	return ch, true
+}
+
+// esrEstimate is a rough ESR of a capacitor by type and value, ohms:
+// general-purpose aluminium electrolytics about 150 Ω·µF / C (a fit to the
+// chart quoted in shared/reference/methods.md §6: 10 µF 20 Ω, 100 µF 1.6 Ω
+// at 16 V), solid tantalum about 3 Ω at 1 µF falling as 1/√C (from memory),
+// ceramic 0.01 Ω (methods.md §6: MLCC 0.01–0.1 Ω).
+func esrEstimate(kind infer.CapType, uf float64) float64 {
+	switch kind {
+	case infer.CapElectrolytic:
+		return 150 / math.Max(uf, 0.1)
+	case infer.CapTantalum:
+		return 3 / math.Sqrt(math.Max(uf, 0.1))
+	case infer.CapCeramic:
+		return 0.01
+	}
+	return 0
+}
+
+func checkCout(in *Input, c *cand) (Check, bool) {
+	f, cp := c.Family, in.Cap
+	req := f.Cout
+	needs := req.MinUF > 0 || req.ESRMinOhm > 0 || req.ESRMaxOhm > 0 || !req.CeramicOK
+	ch := Check{Name: CheckCout, Unit: "F", LimitText: coutLimit(f), Action: coutAdvice(f)}
+	if req.MinUF > 0 {
+		ch.Limit = num(f.MinCoutUF(string(cp.Type)) * 1e-6)
+	}
+	kind := string(cp.Type)
+	if kind == "" {
+		kind = "of unknown type"
+	}
+	ch.ValueText = fmt.Sprintf("%g µF %s", cp.UF, kind)
+	if cp.UFSet {
+		ch.Value = num(cp.UF * 1e-6)
+	} else {
+		ch.ValueText = "value unknown, " + kind
+	}
+	switch {
+	case cp.Silent && !needs:
+		return Check{}, false
+	case cp.Silent:
+		ch.ValueText, ch.Margin, ch.Status = "unknown", 0, Warn
+		ch.Text = "the board's output capacitor is not described: check it meets " + coutLimit(f)
+	case cp.UFSet && req.MinUF > 0 && cp.UF < req.MinUF:
+		ch.Margin, ch.Status = cp.UF/req.MinUF-1, Fail
+		ch.Text = fmt.Sprintf("needs at least %g µF at the output for stability; the board has %g µF", req.MinUF, cp.UF)
+	case cp.Type == infer.CapCeramic && !req.CeramicOK:
+		ch.Margin, ch.Status = -1, Fail
+		ch.Text = "not stable with ceramic capacitors alone: its loop needs the ESR of a tantalum or aluminium part"
+	case cp.UFSet && f.Cout.MaxUF > 0 && cp.UF > f.Cout.MaxUF:
+		ch.Margin, ch.Status = f.Cout.MaxUF/cp.UF-1, Fail
+		ch.Text = fmt.Sprintf("more than the %g µF it can start into", f.Cout.MaxUF)
+	case cp.UFSet && cp.Type != "" && cp.UF < f.MinCoutUF(string(cp.Type)):
+		need := f.MinCoutUF(string(cp.Type))
+		ch.Margin, ch.Status = cp.UF/need-1, Fail
+		ch.Text = fmt.Sprintf("the datasheet asks %g µF of solid tantalum or %g µF of aluminium electrolytic; the board has %g µF %s", req.MinUF, f.MinCoutUF(string(infer.CapElectrolytic)), cp.UF, cp.Type)
+	case !needs:
+		ch.LimitText, ch.Margin, ch.Status, ch.Action = "none needed", 1, Pass, ""
+		ch.Text = "not needed for stability; the board's capacitor helps the transient response"
+	case !cp.UFSet:
+		ch.Margin, ch.Status = 0, Warn
+		ch.Text = fmt.Sprintf("the capacitor's value is not given: read it off the part and make sure it meets %s", coutLimit(f))
+	case cp.Type == "":
+		ch.Margin, ch.Status = 0, Warn
+		ch.Text = fmt.Sprintf("the capacitor's type is not given: this part needs %s; an aluminium part's ESR may be outside it", coutLimit(f))
+	default:
+		coutESR(f, cp, &ch)
+	}
+	if ch.Status == Pass {
+		ch.Action = ""
+	}
+	return ch, true
+}
+
+// coutESR judges a capacitor of known type and value against the ESR window.
+func coutESR(f *catalog.Family, cp Cap, ch *Check) {
+	req := f.Cout
+	esr := esrEstimate(cp.Type, cp.UF)
+	switch {
+	case req.ESRMaxOhm > 0 && esr > req.ESRMaxOhm:
+		ch.ValueText += fmt.Sprintf(", ESR about %.2g Ω", esr)
+		ch.Margin, ch.Status = req.ESRMaxOhm/esr-1, Warn
+		ch.Text = fmt.Sprintf("the capacitor's ESR (about %.2g Ω, and up to 30× more when cold) is above the %.2g Ω the part tolerates", esr, req.ESRMaxOhm)
+	case req.ESRMinOhm > 0 && esr > 0 && esr < req.ESRMinOhm:
+		ch.ValueText += fmt.Sprintf(", ESR about %.2g Ω", esr)
+		ch.Margin, ch.Status = esr/req.ESRMinOhm-1, Fail
+		ch.Text = fmt.Sprintf("the capacitor's ESR (about %.2g Ω) is below the %.2g Ω the loop needs: it may oscillate", esr, req.ESRMinOhm)
+	default:
+		ch.Margin, ch.Status = 0.5, Pass
+		ch.Text = "within the part's output-capacitor requirement"
+	}
+}
+
+func coutLimit(f *catalog.Family) string {
+	c := f.Cout
+	var parts []string
+	if c.MinUF > 0 {
+		s := fmt.Sprintf("≥ %g µF", c.MinUF)
+		if al := f.MinCoutUF(string(infer.CapElectrolytic)); al != c.MinUF {
+			s = fmt.Sprintf("≥ %g µF tantalum or %g µF aluminium", c.MinUF, al)
+		}
+		parts = append(parts, s)
+	}
+	if c.ESRMinOhm > 0 || c.ESRMaxOhm > 0 {
+		parts = append(parts, fmt.Sprintf("ESR %g–%g Ω", c.ESRMinOhm, c.ESRMaxOhm))
+	}
+	if !c.CeramicOK {
+		parts = append(parts, "not ceramic alone")
+	}
+	if c.MaxUF > 0 {
+		parts = append(parts, fmt.Sprintf("≤ %g µF", c.MaxUF))
+	}
+	if len(parts) == 0 {
+		return "none needed"
+	}
+	return strings.Join(parts, ", ")
+}
+
+func coutAdvice(f *catalog.Family) string {
+	c := f.Cout
+	switch {
+	case c.ESRMinOhm > 0 || c.ESRMaxOhm > 0:
+		return fmt.Sprintf("capacitor: fit %g µF or more of solid tantalum (ESR inside %g–%g Ω) right at the output lead", math.Max(c.MinUF, 10), c.ESRMinOhm, c.ESRMaxOhm)
+	case c.MinUF > 0:
+		return fmt.Sprintf("capacitor: fit at least %g µF of solid tantalum (or %g µF aluminium) right at the output lead", c.MinUF, f.MinCoutUF(string(infer.CapElectrolytic)))
+	}
+	return "capacitor: 0.1 µF ceramic at the input and output leads"
+}
+
+func checkMinLoad(in *Input, c *cand) (Check, bool) {
+	f, cd := c.Family, &in.Cond
+	if !f.Adjustable() && cd.BypassOhm <= 0 {
+		return Check{}, false
+	}
+	div := 0.0
+	switch {
+	case c.divider != nil:
+		div = c.divider.DividerA
+	case f.Adjustable() && in.Network.Resistors():
+		div = f.VrefV / in.Network.RTopOhm
+	}
+	needA := f.MinLoadMA * 1e-3
+	avail := cd.LoadMinA + div
+	text := fmt.Sprintf("divider %.1f mA plus the lightest load %.3g A against this part's %g mA minimum", div*1e3, cd.LoadMinA, f.MinLoadMA)
+	if c.bypass != nil {
+		needA = c.bypass.MinLoadA
+		text = fmt.Sprintf("the bypass resistor passes %.3g A at %s; with the part's own %g mA the load must stay above %.3g A, and the lightest is %.3g A",
+			c.bypass.ResistorMaxA, cd.PeakAt, f.MinLoadMA, needA, avail)
+	}
+	m := 1.0
+	if needA > 0 {
+		m = (avail - needA) / math.Max(needA, 1e-3)
+	}
+	ch := Check{Name: CheckMinLoad, Unit: "A", Value: num(avail), Limit: num(needA), Margin: m, Status: status(m, 0.2),
+		ValueText: fmt.Sprintf("%.3g A", avail), LimitText: fmt.Sprintf("%.3g A", needA), Text: text}
+	if ch.Status == Fail && c.bypass == nil && f.Adjustable() && in.Network.Resistors() {
+		// The old divider draws too little: smaller resistors fix it.
+		if d, err := chooseFor(f, cd.VoutV); err == nil {
+			ch.Status = Work
+			ch.Action = fmt.Sprintf("resistors: replace the divider with R1 %s and R2 %s so that it draws %.1f mA", ohms(d.R1Ohm), ohms(d.R2Ohm), d.DividerA*1e3)
+		}
+	}
+	return ch, true
+}
+
+func checkModule(in *Input, c *cand) (Check, bool) {
+	f, cd := c.Family, &in.Cond
+	if !f.Switching() {
+		return Check{}, false
+	}
+	var probs []string
+	st := Warn
+	if cd.BypassOhm > 0 {
+		probs = append(probs, fmt.Sprintf("the %s bypass resistor would push current into an output the module cannot sink", ohms(cd.BypassOhm)))
+		st = Fail
+	}
+	if in.Lifted {
+		probs = append(probs, "it cannot work on a lifted ground")
+		st = Fail
+	}
+	if in.Cap.UFSet && f.Cout.MaxUF > 0 && in.Cap.UF > f.Cout.MaxUF {
+		probs = append(probs, fmt.Sprintf("the board's %g µF at the output is more than the %g µF it starts into", in.Cap.UF, f.Cout.MaxUF))
+		st = Fail
+	}
+	probs = append(probs, "it cannot sink current (no output held up by another rail)", "fit an input capacitor (47 µF) at its leads if the filter is far away", "switching noise of tens of mV at hundreds of kHz: not for audio, RF or precision analogue without filtering")
+	m := 0.0
+	if st == Fail {
+		m = -1
+	}
+	ch := Check{Name: CheckModule, ValueText: "switching step-down", LimitText: "linear regulator's circuit", Margin: m, Status: st, Text: strings.Join(probs, "; ")}
+	if st != Fail {
+		ch.Action = "module: fit 47 µF at its input if the filter capacitor is far away"
+	}
+	return ch, true
+}

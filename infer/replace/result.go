@@ -1,0 +1,96 @@
+package replace
+
+import (
+	"fmt"
+	"strings"
+
+	"github.com/whichreg/whichreg/infer"
+)
+
+// Check is one row of a candidate's check table: its figures as numbers
+// (in Unit, SI; nil when the check has no number), the same figures as
+// text, the normalised margin, the status and one sentence of why.
+type Check struct {
+	Name      CheckName `json:"check"`
+	Value     *float64  `json:"value"`      // what the candidate meets here
+	Limit     *float64  `json:"limit"`      // what it must meet
+	Unit      string    `json:"unit"`       // V, A, W, °C, F or "" (null figures)
+	Margin    float64   `json:"margin"`     // normalised: > 0 inside the limit, < 0 beyond it
+	Status    Status    `json:"status"`     // pass, warn, work or fail
+	ValueText string    `json:"value_text"` // the value in words and units
+	LimitText string    `json:"limit_text"` // the limit in words and units
+	Text      string    `json:"text"`       // one sentence of why
+	// Action is what to do about it (install notes; "" when nothing).
+	Action string `json:"action,omitempty"`
+}
+
+// num returns a pointer to x, for the figures of a Check.
+func num(x float64) *float64 { return &x }
+
+// Replacement is one candidate with its checks.
+type Replacement struct {
+	infer.Hypothesis
+	Verdict Verdict // drop-in, needs-work or unsuitable
+	Checks  []Check // every check that applies, in the fixed order
+	// Install are the install notes: the actions of every check that does
+	// not fail, then what to measure after power-up. Empty for an
+	// unsuitable candidate's failing checks.
+	Install []string
+	// Deciding is the check that sets the verdict: the failing one, else
+	// the one needing the most work, else the smallest margin.
+	Deciding CheckName
+	// DecidingWhy says which of the three rules chose it: "fails", "needs
+	// work" or "smallest margin".
+	DecidingWhy string
+	// MinMargin is the smallest margin over the checks.
+	MinMargin float64
+	// WorkCount is the number of checks that need work.
+	WorkCount int
+}
+
+// Check returns the candidate's check named n, or nil.
+func (r *Replacement) Check(n CheckName) *Check {
+	for i := range r.Checks {
+		if r.Checks[i].Name == n {
+			return &r.Checks[i]
+		}
+	}
+	return nil
+}
+
+// Summary is one line: the verdict, which check decides it and why.
+func (r *Replacement) Summary() string {
+	ch := r.Check(r.Deciding)
+	if ch == nil {
+		return string(r.Verdict)
+	}
+	return fmt.Sprintf("%s (%s %s: %s)", r.Verdict, r.Deciding, r.DecidingWhy, ch.Text)
+}
+
+// WorkList names the checks that need work, in order.
+func (r *Replacement) WorkList() string {
+	var ws []string
+	for _, ch := range r.Checks {
+		if ch.Status == Work {
+			ws = append(ws, string(ch.Name))
+		}
+	}
+	return strings.Join(ws, ", ")
+}
+
+// Result is the outcome of [Swap].
+type Result struct {
+	Original     infer.Original // the part being replaced
+	Replacements []Replacement  // ranked: drop-in, needs-work, unsuitable
+	Conditions   Conditions     // the circuit numbers the checks used
+	Assumptions  []string       // defaults used where the evidence was silent
+	// Hidden counts unsuitable candidates left out (without Options.All).
+	Hidden int
+}
+
+// Options tune [Swap].
+type Options struct {
+	// All includes obsolete and scarce parts and other polarities, and
+	// unsuitable candidates (otherwise shown only when nothing else fits).
+	All bool
+}

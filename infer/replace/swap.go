@@ -1,0 +1,162 @@
+package replace
+
+import (
+	"fmt"
+	"math"
+	"sort"
+
+	"github.com/whichreg/whichreg/catalog"
+	"github.com/whichreg/whichreg/infer"
+)
+
+// Swap checks every current-production candidate against the circuit of
+// the original and ranks them: drop-in first, then needs-work (least work
+// first), then (with All, or when nothing else fits) unsuitable; within a
+// class by the smallest margin, then by commonness. It refuses an original
+// that is not a regulator with an error wrapping [infer.ErrNonRegulator].
+func Swap(c *catalog.Catalog, ev *infer.Evidence, orig infer.Original, opts Options) (*Result, error) {
+	if orig.Family == nil || orig.Package == nil {
+		return nil, fmt.Errorf("no original part given")
+	}
+	if orig.Family.NonRegulator() {
+		return nil, fmt.Errorf("%w: %s is a %s (%s): fit the same type of device, not a regulator", infer.ErrNonRegulator, orig.Family.ID, orig.Family.Device, orig.Family.Title)
+	}
+	in, as, err := Prepare(ev, orig)
+	if err != nil {
+		return nil, err
+	}
+	res := &Result{Original: orig, Conditions: in.Cond, Assumptions: as}
+	var all []Replacement
+	for _, f := range c.Sorted() {
+		if f.NonRegulator() {
+			continue // a transistor or switching IC is never a replacement
+		}
+		if f.Polarity != orig.Family.Polarity && !opts.All {
+			continue // the polarity check would fail: not worth listing
+		}
+		for i := range f.Packages {
+			p := &f.Packages[i]
+			if !opts.All && f.StatusOf(p) != "active" {
+				continue
+			}
+			all = append(all, Evaluate(in, infer.Hypothesis{Family: f, Package: p, Outline: c.Outline(p.Outline)}))
+		}
+	}
+	sort.SliceStable(all, func(i, j int) bool { return better(&all[i], &all[j]) })
+	usable := 0
+	for _, r := range all {
+		if r.Verdict != Unsuitable {
+			usable++
+		}
+	}
+	for _, r := range all {
+		if r.Verdict == Unsuitable && !opts.All && usable > 0 {
+			res.Hidden++
+			continue
+		}
+		res.Replacements = append(res.Replacements, r)
+	}
+	return res, nil
+}
+
+// better orders candidates: verdict; within needs-work the fewer checks
+// needing work; then the larger smallest margin; then commonness; then label.
+func better(a, b *Replacement) bool {
+	if a.Verdict != b.Verdict {
+		return a.Verdict.rank() < b.Verdict.rank()
+	}
+	if a.Verdict == NeedsWork && a.WorkCount != b.WorkCount {
+		return a.WorkCount < b.WorkCount
+	}
+	if math.Abs(a.MinMargin-b.MinMargin) > 1e-9 {
+		return a.MinMargin > b.MinMargin
+	}
+	if a.Family.Commonness != b.Family.Commonness {
+		return a.Family.Commonness > b.Family.Commonness
+	}
+	return a.Label() < b.Label()
+}
+
+// WhyNotFirst says truthfully why r ranks below first: a worse verdict (the
+// check that decides it), more work, a smaller margin, or only commonness.
+func WhyNotFirst(r, first *Replacement) string {
+	dec := r.Check(r.Deciding)
+	switch {
+	case r.Verdict != first.Verdict:
+		if dec != nil {
+			return fmt.Sprintf("%s: %s %s: %s", r.Verdict, r.Deciding, r.DecidingWhy, dec.Text)
+		}
+		return string(r.Verdict)
+	case r.Verdict == NeedsWork && r.WorkCount != first.WorkCount:
+		return fmt.Sprintf("more work (%s) than %s (%s)", r.WorkList(), first.Label(), first.WorkList())
+	case math.Abs(r.MinMargin-first.MinMargin) > 1e-9 && dec != nil:
+		return fmt.Sprintf("also %s, with a smaller margin: %s %+.2f against %+.2f (%s)", r.Verdict, r.Deciding, r.MinMargin, first.MinMargin, dec.Text)
+	}
+	return fmt.Sprintf("also %s with the same margin; %s is the more common part", r.Verdict, first.Family.ID)
+}
+
+// Evaluate runs every check that applies to candidate h in the fixed order
+// and judges it.
+func Evaluate(in *Input, h infer.Hypothesis) Replacement {
+	c := prepareCandidate(in, h)
+	r := Replacement{Hypothesis: c.Hypothesis}
+	for _, k := range checks {
+		if ch, ok := k.fn(in, &c); ok {
+			r.Checks = append(r.Checks, ch)
+		}
+	}
+	judge(&r)
+	for _, ch := range r.Checks {
+		if ch.Action != "" && ch.Status != Fail && ch.Status != Pass {
+			r.Install = append(r.Install, ch.Action)
+		}
+	}
+	if r.Verdict != Unsuitable {
+		r.Install = append(r.Install, afterPowerUp(in, &c)...)
+	}
+	return r
+}
+
+// judge sets the verdict and the deciding check: the failing check with
+// the smallest margin, else the work check with the smallest margin, else
+// the check with the smallest margin.
+func judge(r *Replacement) {
+	r.Verdict, r.MinMargin = DropIn, math.Inf(1)
+	worst := -1
+	for _, ch := range r.Checks {
+		r.MinMargin = math.Min(r.MinMargin, ch.Margin)
+		if ch.Status == Work {
+			r.WorkCount++
+		}
+		worst = max(worst, ch.Status.rank())
+	}
+	switch {
+	case worst >= Fail.rank():
+		r.Verdict, r.DecidingWhy = Unsuitable, "fails"
+	case worst == Work.rank():
+		r.Verdict, r.DecidingWhy = NeedsWork, "needs work"
+	default:
+		r.DecidingWhy = "smallest margin"
+	}
+	best := math.Inf(1)
+	for _, ch := range r.Checks {
+		if (worst < Work.rank() || ch.Status.rank() == worst) && ch.Margin < best {
+			best, r.Deciding = ch.Margin, ch.Name
+		}
+	}
+}
+
+// afterPowerUp is what to measure once the part is in.
+func afterPowerUp(in *Input, c *cand) []string {
+	cd := &in.Cond
+	theta, _ := thermalPath(in, c)
+	tcase := cd.AmbientC + c.powerW*(theta-c.Package.ThetaJC)
+	if c.Outline != nil && c.Outline.SMD || cd.HeatsinkCW <= 0 {
+		tcase = cd.AmbientC + c.powerW*theta*0.8 // the body runs a little below the junction (common practice, no source)
+	}
+	s := c.Family.SignText()
+	return []string{
+		fmt.Sprintf("after power-up: output %s%.2f V ±%g %% at full load; ripple at the output a few mV (a scope, AC-coupled)", s, c.outV, c.Family.Tolerance*100),
+		fmt.Sprintf("after 10 minutes at full load: case about %.0f °C (expect within 10 °C); do not touch it bare-handed", tcase),
+	}
+}

@@ -1,0 +1,234 @@
+package replace_test
+
+import (
+	"fmt"
+	"math"
+	"os"
+	"path/filepath"
+	"strconv"
+	"strings"
+	"testing"
+
+	"github.com/whichreg/whichreg/catalog"
+	"github.com/whichreg/whichreg/catalog/builtin"
+	"github.com/whichreg/whichreg/infer"
+	"github.com/whichreg/whichreg/infer/replace"
+)
+
+func builtinCatalog(t testing.TB) *catalog.Catalog {
+	t.Helper()
+	files, errs := builtin.Files()
+	if len(errs) > 0 {
+		t.Fatal(errs)
+	}
+	return catalog.Merge(files...)
+}
+
+func load(t testing.TB, c *catalog.Catalog, name string) *infer.Evidence {
+	t.Helper()
+	data, err := os.ReadFile(name)
+	if err != nil {
+		t.Fatal(err)
+	}
+	ev, err := infer.LoadEvidence(name, data, c)
+	if err != nil {
+		t.Fatalf("%s: %v", name, err)
+	}
+	return ev
+}
+
+// original chooses the original of a case: "# original: ID:OUTLINE[:VOUT]"
+// or identification's leader.
+func original(t testing.TB, c *catalog.Catalog, ev *infer.Evidence, spec string) infer.Original {
+	t.Helper()
+	res, err := infer.Identify(c, ev, infer.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	var named *infer.Hypothesis
+	if spec != "" {
+		h, err := infer.ParseVariant(c, spec)
+		if err != nil {
+			t.Fatal(err)
+		}
+		named = &h
+	}
+	o, err := infer.ChooseOriginal(res, named)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return o
+}
+
+// TestSwapCases runs the cases under testdata/swap. Each names the expected
+// verdict and check statuses of candidates in "# expect:" lines:
+//
+//	# expect: FAMILY:OUTLINE VERDICT check=status … check.margin=M check.value=V
+//
+// margins are pinned to ±0.01 and values to ±0.5 % (±0.01 near zero); the
+// hand calculation and the datasheet behind each number are in the file's
+// comments.
+func TestSwapCases(t *testing.T) {
+	c := builtinCatalog(t)
+	files, _ := filepath.Glob("../../testdata/swap/*.toml")
+	if len(files) < 15 {
+		t.Fatalf("want at least 15 swap cases, found %d", len(files))
+	}
+	seen := map[string]map[replace.Status]bool{} // check -> statuses seen
+	for _, name := range files {
+		t.Run(filepath.Base(name), func(t *testing.T) {
+			data, _ := os.ReadFile(name)
+			ev := load(t, c, name)
+			var spec string
+			var expects []string
+			for _, line := range strings.Split(string(data), "\n") {
+				if s, ok := strings.CutPrefix(line, "# original: "); ok {
+					spec = strings.TrimSpace(s)
+				}
+				if s, ok := strings.CutPrefix(line, "# expect: "); ok {
+					expects = append(expects, s)
+				}
+			}
+			if len(expects) == 0 {
+				t.Fatal("no '# expect:' lines")
+			}
+			sres, err := replace.Swap(c, ev, original(t, c, ev, spec), replace.Options{All: true})
+			if err != nil {
+				t.Fatal(err)
+			}
+			for _, e := range expects {
+				expectOne(t, c, sres, strings.Fields(e), seen)
+			}
+		})
+	}
+	// Every check must be seen failing and passing somewhere (module: failing
+	// and warning, since a switching module always carries the noise caution).
+	for _, k := range []string{"outline", "pinout", "polarity", "vout", "current", "vin_max", "dropout", "thermal", "cout", "min_load"} {
+		if !seen[k][replace.Fail] || !seen[k][replace.Pass] {
+			t.Errorf("check %s seen as %v; want both fail and pass among the cases", k, seen[k])
+		}
+	}
+	// An insulating kit always settles a live tab: tab is seen passing and
+	// needing work.
+	if !seen["tab"][replace.Work] || !seen["tab"][replace.Pass] {
+		t.Errorf("tab seen as %v; want work and pass", seen["tab"])
+	}
+	if !seen["module"][replace.Fail] || !seen["module"][replace.Warn] {
+		t.Errorf("module seen as %v; want fail and warn", seen["module"])
+	}
+}
+
+func expectOne(t *testing.T, c *catalog.Catalog, sres *replace.Result, f []string, seen map[string]map[replace.Status]bool) {
+	t.Helper()
+	want, err := infer.ParseVariant(c, f[0])
+	if err != nil {
+		t.Fatal(err)
+	}
+	var got *replace.Replacement
+	for i := range sres.Replacements {
+		r := &sres.Replacements[i]
+		if r.Family == want.Family && r.Package == want.Package {
+			got = r
+		}
+	}
+	if got == nil {
+		t.Errorf("%s: not among the candidates", f[0])
+		return
+	}
+	if string(got.Verdict) != f[1] {
+		t.Errorf("%s: verdict %s, want %s (%s)", f[0], got.Verdict, f[1], got.Summary())
+		for _, ch := range got.Checks {
+			t.Logf("  %s %s %+.3f %s", ch.Name, ch.Status, ch.Margin, ch.Text)
+		}
+	}
+	for _, kv := range f[2:] {
+		k, v, _ := strings.Cut(kv, "=")
+		check, field, _ := strings.Cut(k, ".")
+		ch := got.Check(replace.CheckName(check))
+		if ch == nil {
+			t.Errorf("%s: no %s check", f[0], check)
+			continue
+		}
+		switch field {
+		case "":
+			if string(ch.Status) != v {
+				t.Errorf("%s: check %s is %s (%s), want %s", f[0], check, ch.Status, ch.Text, v)
+			}
+			if seen[check] == nil {
+				seen[check] = map[replace.Status]bool{}
+			}
+			seen[check][ch.Status] = true
+		case "margin":
+			x, _ := strconv.ParseFloat(v, 64)
+			if math.Abs(ch.Margin-x) > 0.01 {
+				t.Errorf("%s: %s margin %.4f, want %s (%s)", f[0], check, ch.Margin, v, ch.Text)
+			}
+		case "value", "limit":
+			x, _ := strconv.ParseFloat(v, 64)
+			p := ch.Value
+			if field == "limit" {
+				p = ch.Limit
+			}
+			if p == nil || math.Abs(*p-x) > math.Max(0.005*math.Abs(x), 0.01) {
+				t.Errorf("%s: %s %s %v, want %s (%s)", f[0], check, field, fmtNum(p), v, ch.Text)
+			}
+		case "text":
+			if !strings.Contains(ch.Text, strings.ReplaceAll(v, "_", " ")) {
+				t.Errorf("%s: %s text %q lacks %q", f[0], check, ch.Text, v)
+			}
+		default:
+			t.Fatalf("unknown expectation %q", kv)
+		}
+	}
+}
+
+func fmtNum(p *float64) string {
+	if p == nil {
+		return "null"
+	}
+	return fmt.Sprintf("%.4g", *p)
+}
+
+func BenchmarkSwap(b *testing.B) {
+	c := builtinCatalog(b)
+	ev := load(b, c, "../../testdata/demo/vending-lifted-ground.toml")
+	o := original(b, c, ev, "")
+	for b.Loop() {
+		if _, err := replace.Swap(c, ev, o, replace.Options{}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+func ExampleSwap() {
+	files, _ := builtin.Files()
+	c := catalog.Merge(files...)
+	ev, _ := infer.LoadEvidence("u1.toml", []byte(`
+package = "TO-220"
+[pins.1]
+wired_to = "unregulated"
+volts = 11.5
+[pins.2]
+wired_to = "ground"
+[pins.3]
+wired_to = "load"
+volts = 5.0
+[case]
+tied_to_pin = 2
+[output]
+amps = 0.5
+[mount]
+heatsink_c_per_w = 8
+insulator = "mica"
+chassis_heatsink = true
+`), c)
+	res, _ := infer.Identify(c, ev, infer.Options{Explain: 1})
+	orig, _ := infer.ChooseOriginal(res, nil)
+	sres, _ := replace.Swap(c, ev, orig, replace.Options{})
+	for _, r := range sres.Replacements[:2] {
+		fmt.Println(r.Label(), r.Verdict)
+	}
+	// Output:
+	// 340 TO-220 5 V drop-in
+	// 78xx TO-220 5 V drop-in
+}
