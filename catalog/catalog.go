@@ -32,6 +32,12 @@ type Outline struct {
 	Tab bool `toml:"tab" json:"tab"`
 	// MetalCan is true for metal cans (TO-3, TO-66, TO-39).
 	MetalCan bool `toml:"metal_can" json:"metal_can"`
+	// MountingHole is true when the body or tab has a hole for a screw
+	// (TO-220, TO-126, TO-3); surface-mount outlines have none.
+	MountingHole bool `toml:"mounting_hole" json:"mounting_hole,omitempty"`
+	// RoundCan is true for a round metal can with its leads on a circle
+	// (TO-39, TO-5).
+	RoundCan bool `toml:"round_can" json:"round_can,omitempty"`
 	// CaseTerminal is true when the can is one of the part's three terminals
 	// (TO-3 and TO-66: two leads plus the case).
 	CaseTerminal bool `toml:"case_terminal" json:"case_terminal,omitempty"`
@@ -74,6 +80,9 @@ type Package struct {
 	// Variant names this pinout when a family has more than one on the same
 	// outline (e.g. "BC547 order" and "2N3904 order" on TO-92); "" otherwise.
 	Variant string `toml:"variant" json:"variant,omitempty"`
+	// Source names the datasheet of this variant when it differs from the
+	// family's (another maker's pinout or rating); required with Variant.
+	Source string `toml:"source" json:"source,omitempty"`
 	// Pins lists the function of leads 1..n (IN, OUT, GND, ADJ, NC, EN, … and
 	// B, C, E, G, D, S, REF, A, K for look-alikes), numbered by the outline's
 	// convention ([Outline.View]).

@@ -362,7 +362,7 @@ func TestDrawings(t *testing.T) {
 	for _, f := range c.Sorted() {
 		for i := range f.Packages {
 			p := &f.Packages[i]
-			fmt.Fprintf(&b, "== %s %s\n%s", f.ID, p.Outline, catalog.Drawing(c.Outline(p.Outline), p))
+			fmt.Fprintf(&b, "== %s %s\n%s", f.ID, p.Label(), catalog.Drawing(c.Outline(p.Outline), p))
 		}
 	}
 	golden.Check(t, "../testdata/catalog/drawings.golden", b.String(), *update)

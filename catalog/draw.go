@@ -32,10 +32,20 @@ func Drawing(o *Outline, p *Package) string {
 	switch {
 	case o != nil && o.CaseTerminal:
 		fmt.Fprintf(&b, "  (o)%s(o)   mounting holes; the can is %s\n", strings.Repeat(" ", width-2), p.Tab)
+	case o != nil && o.RoundCan:
+		// A round can seen from below, its leads on a circle under it.
+		edge := strings.Repeat("-", width-5)
+		fmt.Fprintf(&b, "    .%s.\n   /%s\\   can tied to %s\n   \\%s/\n    '%s'\n",
+			edge, center("", width-3), p.Tab, center("", width-3), edge)
 	case o != nil && o.MetalCan:
 		fmt.Fprintf(&b, "  %s\n  |%s|   can tied to %s\n  %s\n", top, center("", width-1), p.Tab, top)
-	case o != nil && o.Tab && !o.Isolated:
+	case o != nil && o.Tab && !o.Isolated && o.MountingHole:
 		fmt.Fprintf(&b, "  %s\n  |%s|   tab: %s\n  |%s|\n  %s\n", top, center("(o)", width-1), p.Tab, center("", width-1), top)
+	case o != nil && o.Tab && !o.Isolated:
+		// A surface-mount pad: no hole.
+		fmt.Fprintf(&b, "  %s\n  |%s|   pad: %s\n  %s\n", top, center("", width-1), p.Tab, top)
+	case o != nil && o.MountingHole:
+		fmt.Fprintf(&b, "  %s\n  |%s|   insulated body\n  %s\n", top, center("(o)", width-1), top)
 	default:
 		fmt.Fprintf(&b, "  %s\n  |%s|\n  %s\n", top, center("", width-1), top)
 	}

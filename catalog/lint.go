@@ -77,6 +77,12 @@ func lintOutline(o *Outline, errs *ErrorList) {
 	if o.Commonness < 0 || o.Commonness > 5 {
 		p.add(errs, "commonness", "commonness = %d is not 1 (rare) to 5 (everywhere), or 0 for the default", o.Commonness)
 	}
+	if o.RoundCan && !o.MetalCan {
+		p.add(errs, "round_can", "round_can needs metal_can = true")
+	}
+	if o.MountingHole && o.SMD {
+		p.add(errs, "mounting_hole", "a surface-mount outline has no mounting hole; leave mounting_hole out")
+	}
 	if o.CaseTerminal && !o.MetalCan {
 		p.add(errs, "case_terminal", "case_terminal needs metal_can = true")
 	}
@@ -276,6 +282,9 @@ func lintPackage(c *Catalog, f *Family, i int, errs *ErrorList) {
 	}
 	if pk.CurrentA < 0 || bad(pk.CurrentA) {
 		p.add(errs, key("current_a"), "current_a = %g is impossible", pk.CurrentA)
+	}
+	if pk.Variant != "" && pk.Source == "" {
+		p.add(errs, key("source"), "variant %q names no source; give the datasheet (maker, title, revision) its pinout or rating comes from", pk.Variant)
 	}
 	for j, code := range pk.OrderCodes {
 		if code == "" || len(code) > 40 || strings.ContainsAny(code, " \t\n") {

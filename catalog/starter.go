@@ -19,6 +19,8 @@ pitch_mm = 2.54                 # centre to centre of adjacent leads
 hole_spacing_mm = 0             # between two mounting holes (cans); 0 = none
 tab = false                     # a metal tab or pad
 metal_can = false               # a metal can (TO-3, TO-39)
+round_can = false               # a round can with leads on a circle (TO-39)
+mounting_hole = true            # a hole for a screw (TO-220, TO-3); never on SMD outlines
 case_terminal = false           # the can is the third terminal (TO-3, TO-66)
 isolated = true                 # no exposed metal
 commonness = 2                  # 1 rare ... 5 everywhere: shares a family's prior among packages
@@ -57,11 +59,18 @@ status = "active"               # active | obsolete | scarce
 since = 1980                    # year introduced; 0 = unknown
 commonness = 3                  # 1 rare ... 5 everywhere
 markings = ["*MY78{VV}*"]       # ? one character, * any run, {VV} the voltage code
+# The voltage code {VV} is the output as the 78xx makers print it: two digits
+# of whole volts ("05" = 5 V, "12" = 12 V), or the digits without the point
+# below 10 V ("33" = 3.3 V, "85" = 8.5 V). "18" therefore reads as 18 V or
+# 1.8 V, and 'catalog check' notes a family where that happens. Families that
+# print volts x 10 (LF50 = 5.0 V, HT7333 = 3.3 V) spell their markings out
+# instead of using {VV}.
 source = "datasheet title, maker and revision"
 notes = []
   [[family.package]]
   outline = "TO-220-ISO-EXAMPLE"
   variant = ""                  # names the pinout when a family has two on one outline
+  source = ""                   # this variant's own datasheet (required with variant)
   pins = ["IN", "GND", "OUT"]   # lead 1..n: IN OUT GND ADJ NC EN SENSE FB PG BYP INH; look-alikes: SW B C E G D S REF A K
   tab = "none"                  # what the tab or can is tied to, or "none"
   theta_jc = 5.0                # junction to case, C/W

@@ -7,6 +7,7 @@ import (
 	"strings"
 
 	"github.com/whichreg/whichreg/catalog"
+	"github.com/whichreg/whichreg/infer/circuit"
 )
 
 // conflicts lists evidence that contradicts itself, evidence that every
@@ -162,11 +163,12 @@ func (sc *scene) inputSlip(res *Result) []string {
 		return []string{fmt.Sprintf("lead %d (the input) reads %.2f V, but the [input] model (%s) gives at most %.1f V, even at high mains and light load: "+
 			"the transformer figure looks wrong; check input.secondary_vrms (the other winding, or both halves of a centre-tapped one?)", n, v, desc, hi)}
 	}
-	if vm < sc.input.Peak.V*0.8 {
-		full, err := OperatingPoint(sc.ev, OperatingOptions{Sweep: SweepAll})
-		if err == nil && vm < full.Trough.V*0.95 {
+	if r := sc.input.Rectifier; r != nil && vm < sc.input.Peak.V*0.8 {
+		// The lowest trough: low mains, full load, low filter capacitance.
+		low, err := r.At(circuit.Corner{Mains: 1 - sc.input.MainsTol, CapFactor: 1 - FilterCapTolerance, Load: r.Load}).Solve()
+		if err == nil && vm < low.TroughV*0.95 {
 			return []string{fmt.Sprintf("lead %d (the input) reads %.2f V, but the [input] model (%s) never falls below %.1f V, even at low mains and full load: "+
-				"check input.secondary_vrms and input.filter_uf (a dried-out filter capacitor reads low too)", n, v, desc, full.Trough.V)}
+				"check input.secondary_vrms and input.filter_uf (a dried-out filter capacitor reads low too)", n, v, desc, low.TroughV)}
 		}
 	}
 	return nil

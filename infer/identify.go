@@ -196,17 +196,25 @@ func rank(cands []Candidate, nicScore float64) ([]Candidate, float64) {
 	for _, cd := range cands {
 		z += math.Exp(cd.Score - top)
 	}
+	order := make([]int, len(cands))
 	for i := range cands {
 		cands[i].Probability = math.Exp(cands[i].Score-top) / z
 		cands[i].name()
+		order[i] = i
 	}
-	sort.SliceStable(cands, func(i, j int) bool {
+	// Sort indices, not the (large) candidates.
+	sort.SliceStable(order, func(a, b int) bool {
+		i, j := order[a], order[b]
 		if cands[i].Probability != cands[j].Probability {
 			return cands[i].Probability > cands[j].Probability
 		}
 		return cands[i].label < cands[j].label
 	})
-	return cands, math.Exp(nicScore-top) / z
+	sorted := make([]Candidate, len(cands))
+	for k, i := range order {
+		sorted[k] = cands[i]
+	}
+	return sorted, math.Exp(nicScore-top) / z
 }
 
 func trimFloat(v float64) string {

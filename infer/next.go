@@ -98,8 +98,8 @@ type outcomeDist map[string]float64
 // wiringDist is the distribution of the wiring word of a lead of function fn.
 func wiringDist(f *catalog.Family, fn string) outcomeDist {
 	d := outcomeDist{}
-	for w, p := range wiringOf(f, fn) {
-		d[string(w)] = p
+	for i, p := range wiringOf(f, fn) {
+		d[string(wirings.words[i])] = p
 	}
 	return d
 }

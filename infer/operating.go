@@ -326,6 +326,10 @@ func (op *Operating) rectifierModel(ev *Evidence) (r circuit.Rectifier, ok bool,
 	}
 	op.note("filter capacitor ESR 0.05 Ω and 1N4007-class diodes assumed")
 	r = circuit.Rectifier{Topology: top, VrmsV: emf, Hz: hz, CapF: in.FilterUF.V * 1e-6, ESROhm: 0.05, SourceOhm: rs, Load: circuit.Load{Amps: op.LoadMaxA}}
+	// The model's own loaded secondary must read what was measured.
+	if r, err = r.MatchSecondary(in.SecondaryVrms.V); err != nil {
+		return r, false, fmt.Errorf("%s: [input]: %w", ev.File, err)
+	}
 	return r, true, nil
 }
 

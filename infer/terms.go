@@ -127,9 +127,7 @@ func viewOf(h Hypothesis, ev *Evidence) voltsView {
 	v.out, v.haveOut = v.tv[v.outFn]
 	v.in, v.haveIn = v.tv[catalog.PinIn]
 	v.com, v.haveCom = common(v.tv)
-	if h.Family.Negative() {
-		v.sign = -1
-	}
+	v.sign = h.Family.Signed(1)
 	return v
 }
 

@@ -11,13 +11,22 @@ import (
 // six words, equally likely.
 const pFlatWired = 1.0 / 6
 
-// wiringRow is P(wiring word | what the lead does). Each row sums to 1
-// (judgement: common practice, no source).
-type wiringRow map[Wiring]float64
+// wiringRow is P(wiring word | what the lead does), in the order of the
+// wiring words ([Wirings]). Each row sums to 1 (judgement: common practice,
+// no source).
+type wiringRow [6]float64
 
 // The rows: (unregulated, load, ground, network, open, inductor).
-func row(u, l, g, n, o, i float64) wiringRow {
-	return wiringRow{WiredUnregulated: u, WiredLoad: l, WiredGround: g, WiredNetwork: n, WiredOpen: o, WiredInductor: i}
+func row(u, l, g, n, o, i float64) wiringRow { return wiringRow{u, l, g, n, o, i} }
+
+// p returns the probability of word w (0 for a word not in the list).
+func (wr wiringRow) p(w Wiring) float64 {
+	for i, x := range wirings.words {
+		if x == w {
+			return wr[i]
+		}
+	}
+	return 0
 }
 
 // wiringOf returns the row of a lead of function fn in family f. A
@@ -156,7 +165,7 @@ func termWiring(sc *scene, h Hypothesis, _ voltsView, r *reasons) {
 			continue
 		}
 		fn := pk.Pins[n-1]
-		r.add(key, wiringOf(f, fn)[p.WiredTo], pFlatWired, "lead %d to %s: this pinout puts %s there", n, p.WiredTo, fn)
+		r.add(key, wiringOf(f, fn).p(p.WiredTo), pFlatWired, "lead %d to %s: this pinout puts %s there", n, p.WiredTo, fn)
 	}
 }
 
@@ -173,14 +182,14 @@ func termCase(sc *scene, h Hypothesis, _ voltsView, r *reasons) {
 			r.add("case.tied_to_pin", 0.95, 1.0/3, "case tied to no lead: on %s the can is the %s terminal", o.Name, pk.Tab)
 		}
 		if cs.WiredTo != "" {
-			r.add("case.wired_to", wiringOf(f, pk.Tab)[cs.WiredTo], pFlatWired, "can to %s: this variant's can is %s", cs.WiredTo, pk.Tab)
+			r.add("case.wired_to", wiringOf(f, pk.Tab).p(cs.WiredTo), pFlatWired, "can to %s: this variant's can is %s", cs.WiredTo, pk.Tab)
 		}
 		return
 	}
 	live := pk.Tab != catalog.TabNone && pk.Tab != ""
 	if cs.TiedToPin == nil {
 		if cs.WiredTo != "" && live {
-			r.add("case.wired_to", wiringOf(f, pk.Tab)[cs.WiredTo], pFlatWired, "case to %s: this variant's tab is %s", cs.WiredTo, pk.Tab)
+			r.add("case.wired_to", wiringOf(f, pk.Tab).p(cs.WiredTo), pFlatWired, "case to %s: this variant's tab is %s", cs.WiredTo, pk.Tab)
 		}
 		return
 	}

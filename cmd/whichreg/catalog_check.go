@@ -2,6 +2,7 @@ package main
 
 import (
 	"fmt"
+	"strings"
 
 	"github.com/spf13/cobra"
 	"github.com/whichreg/whichreg/catalog"
@@ -82,6 +83,9 @@ func catalogCheckRun(opts *catalogCheckOptions) error {
 		}
 	} else if len(errs) == 0 {
 		fmt.Fprintf(out, "ok: %d families, %d outlines, no problems\n", len(c.Families), len(c.Outlines))
+		for _, n := range catalog.Notes(c, userOrigins(files)...) {
+			report.Fill(out, "note: "+n.Error(), opts.app.Width(), "", "    ")
+		}
 	} else {
 		for _, e := range errs {
 			// The file:line:col: prefix stays on the first line, for editors.
@@ -93,4 +97,19 @@ func catalogCheckRun(opts *catalogCheckOptions) error {
 		return &exitError{code: exitInput, err: errPrinted}
 	}
 	return nil
+}
+
+// userOrigins names the files given beside the built-in catalog, so that
+// notes speak only of them.
+func userOrigins(files []*catalog.File) []string {
+	var out []string
+	for _, f := range files {
+		if f != nil && !strings.HasPrefix(f.Name, builtin.Prefix) {
+			out = append(out, f.Name)
+		}
+	}
+	if out == nil {
+		out = []string{""} // no user file: nothing to note
+	}
+	return out
 }

@@ -178,7 +178,7 @@ func writeFamily(w io.Writer, width int, c *catalog.Catalog, f *catalog.Family) 
 		p := &f.Packages[i]
 		o := c.Outline(p.Outline)
 		fmt.Fprintln(w)
-		report.Fill(w, fmt.Sprintf("package %s: %s, θJC %s, θJA %s, %s", p.Outline, report.Num(f.Current(p), "A"),
+		report.Fill(w, fmt.Sprintf("package %s: %s, θJC %s, θJA %s, %s", p.Label(), report.Num(f.Current(p), "A"),
 			report.Num(p.ThetaJC, "°C/W"), report.Num(p.ThetaJA, "°C/W"), f.StatusOf(p)), width, "  ", "    ")
 		if p.Note != "" {
 			report.Fill(w, p.Note, width, "  note: ", "        ")

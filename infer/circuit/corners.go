@@ -49,6 +49,57 @@ func FromRegulation(t Topology, vrmsLoadedV, regulation, loadA float64) (emfV, r
 	return vrmsLoadedV * (1 + regulation), vrmsLoadedV * regulation / (f * loadA), nil
 }
 
+// MatchSecondary returns r with its winding resistance set so that the
+// model's own loaded secondary ([Result.SecondaryRMSV]) at r.Load equals
+// vrmsLoadedV, the secondary voltage measured at that load; r.VrmsV is the
+// open-circuit EMF (from the regulation, see [FromRegulation], whose
+// resistance is the starting guess). The rectifier's peaky current drops
+// less RMS voltage in the winding than I_rms·R suggests, so the simple
+// formula leaves the loaded secondary a few per cent high; this removes
+// that error by the secant method on R (to 0.01 % of the voltage).
+func (r Rectifier) MatchSecondary(vrmsLoadedV float64) (Rectifier, error) {
+	if !(vrmsLoadedV > 0) || vrmsLoadedV > r.VrmsV {
+		return r, fmt.Errorf("loaded secondary %g V must be positive and not above the open-circuit %g V", vrmsLoadedV, r.VrmsV)
+	}
+	if vrmsLoadedV == r.VrmsV || r.SourceOhm <= 0 {
+		return r, nil
+	}
+	f := func(rs float64) (float64, error) {
+		q := r
+		q.SourceOhm = rs
+		res, err := q.Solve()
+		return res.SecondaryRMSV - vrmsLoadedV, err
+	}
+	x0, x1 := r.SourceOhm, r.SourceOhm*1.3
+	f0, err := f(x0)
+	if err != nil {
+		return r, err
+	}
+	f1, err := f(x1)
+	if err != nil {
+		return r, err
+	}
+	for it := 0; it < 30; it++ {
+		if math.Abs(f1) < 1e-4*vrmsLoadedV {
+			r.SourceOhm = x1
+			return r, nil
+		}
+		if f1 == f0 {
+			break
+		}
+		x2 := x1 - f1*(x1-x0)/(f1-f0)
+		if !(x2 > 0) {
+			x2 = x1 / 2
+		}
+		x0, f0 = x1, f1
+		x1 = x2
+		if f1, err = f(x1); err != nil {
+			return r, err
+		}
+	}
+	return r, fmt.Errorf("the winding resistance that gives %g V loaded could not be found", vrmsLoadedV)
+}
+
 // CornerSpec says which tolerances to sweep.
 type CornerSpec struct {
 	MainsTol float64 // mains tolerance either way, fraction (0.10 = ±10 %)

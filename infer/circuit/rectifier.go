@@ -103,6 +103,13 @@ type Result struct {
 	DiodePeakA    float64 `json:"diode_peak_a"`     // peak current in one diode
 	ConductionDeg float64 `json:"conduction_deg"`   // degrees of the mains cycle one diode carries more than 1 % of its peak
 	LoadA         float64 `json:"load_a"`           // mean load current
+	// SecondaryRMSV is the RMS voltage at the winding's terminals: the
+	// source EMF less the winding resistance's drop while the diodes
+	// conduct, what a true-RMS meter on the loaded secondary reads. For a
+	// centre tap it is the conducting half's terminal on each half-cycle:
+	// the primary's share of the resistance loads both halves alike, so a
+	// meter on either half sees the drop on every half-cycle.
+	SecondaryRMSV float64 `json:"secondary_rms_v"`
 	// SettleCycles is how many mains cycles a simulation started from an
 	// empty capacitor needs to come within 1e-6 of this state (from the
 	// contraction rate the shooting method measured).
@@ -171,8 +178,13 @@ type state struct {
 	c, esr       float64
 	il, rl       float64
 	vp, w        float64
+	rs           float64 // winding resistance (for the terminal voltage)
 	full         bool
 }
+
+// secondary returns the winding's terminal voltage at time t carrying path
+// current id (rectified, like drive).
+func (s *state) secondary(t, id float64) float64 { return s.drive(t) - id*s.rs }
 
 // drive returns the rectified source EMF at time t.
 func (s *state) drive(t float64) float64 {
@@ -256,7 +268,8 @@ func (s *state) cycle(vc0 float64, steps int, period float64, rec *Result) (floa
 	vc := vc0
 	sens := 1.0
 	ic, dic, id, vout, vj := s.capCurrent(vc, 0, 0)
-	var sumV, sumI2 float64
+	var sumV, sumI2, sumE2 float64
+	vs := s.secondary(0, id)
 	peakV, troughV, peakI := vout, vout, id
 	ids := make([]float64, 0)
 	if rec != nil {
@@ -284,6 +297,9 @@ func (s *state) cycle(vc0 float64, steps int, period float64, rec *Result) (floa
 		if rec != nil {
 			sumV += dt / 2 * (vout + voutx)
 			sumI2 += dt / 2 * (ic*ic + icx*icx)
+			vsx := s.secondary(t, idx)
+			sumE2 += dt / 2 * (vs*vs + vsx*vsx)
+			vs = vsx
 			peakV = math.Max(peakV, voutx)
 			troughV = math.Min(troughV, voutx)
 			peakI = math.Max(peakI, idx)
@@ -296,6 +312,7 @@ func (s *state) cycle(vc0 float64, steps int, period float64, rec *Result) (floa
 		rec.MeanV = sumV / period
 		rec.RippleVpp = peakV - troughV
 		rec.CapRippleARMS = math.Sqrt(sumI2 / period)
+		rec.SecondaryRMSV = math.Sqrt(sumE2 / period)
 		rec.DiodePeakA = peakI
 		on := 0
 		for _, v := range ids[1:] {
@@ -348,7 +365,7 @@ func (r Rectifier) newState() (*state, int) {
 	s := &state{
 		nd: float64(r.Topology.diodes()), is: d.IS, nvt: d.vt(), rsd: d.RS,
 		c: r.CapF, esr: r.ESROhm, il: r.Load.Amps, vp: math.Sqrt2 * r.VrmsV,
-		w: 2 * math.Pi * r.Hz, full: r.Topology.fullWave(),
+		w: 2 * math.Pi * r.Hz, full: r.Topology.fullWave(), rs: r.SourceOhm,
 	}
 	if s.il == 0 && r.Load.Ohms > 0 {
 		s.rl = r.Load.Ohms

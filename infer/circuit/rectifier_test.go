@@ -86,7 +86,7 @@ func TestNgspiceCrossCheck(t *testing.T) {
 		{"bridge 50 Hz heavy", Rectifier{Topology: Bridge, VrmsV: 12.6, Hz: 50, CapF: 3300e-6, ESROhm: 0.04, SourceOhm: 0.4, Load: Load{Amps: 1.2}}},
 		{"bridge 60 Hz light resistive", Rectifier{Topology: Bridge, VrmsV: 24, Hz: 60, CapF: 220e-6, SourceOhm: 3, Load: Load{Ohms: 470}}},
 	}
-	re := regexp.MustCompile(`(?m)^\s*(peak|trough|mean|icap|idpk)\s*=\s*([-+0-9.eE]+)`)
+	re := regexp.MustCompile(`(?m)^\s*(peak|trough|mean|icap|idpk|vsec)\s*=\s*([-+0-9.eE]+)`)
 	dir := t.TempDir()
 	for _, tc := range cases {
 		tc := tc
@@ -115,7 +115,7 @@ func TestNgspiceCrossCheck(t *testing.T) {
 					got[m[1]] = v
 				}
 			}
-			if len(got) != 5 {
+			if len(got) != 6 {
 				t.Fatalf("ngspice gave %v; output:\n%s", got, out)
 			}
 			for _, c := range []struct {
@@ -126,6 +126,7 @@ func TestNgspiceCrossCheck(t *testing.T) {
 				{"peak", res.PeakV, got["peak"], 0.01}, {"trough", res.TroughV, got["trough"], 0.01},
 				{"mean", res.MeanV, got["mean"], 0.01}, {"cap ripple rms", res.CapRippleARMS, got["icap"], 0.05},
 				{"diode peak", res.DiodePeakA, got["idpk"], 0.05},
+				{"loaded secondary rms", res.SecondaryRMSV, got["vsec"], 0.005},
 			} {
 				if !within(c.ours, c.sp, c.rel) {
 					t.Errorf("%s: ours %.5g, ngspice %.5g (tolerance %g %%)", c.what, c.ours, c.sp, c.rel*100)

@@ -11,8 +11,9 @@ import (
 // resistance, capacitance, ESR and load as the solver, the filtered node
 // named vdc, a transient run of settleCycles mains cycles (use
 // [Result.SettleCycles]; at least 20), and .meas results peak, trough and
-// mean (of v(vdc)), icap (RMS capacitor current) and idpk (peak current of
-// one diode) over the last whole mains cycle.
+// mean (of v(vdc)), icap (RMS capacitor current), idpk (peak current of
+// one diode) and vsec (RMS of the winding's terminal voltage; for a centre
+// tap the conducting half's) over the last whole mains cycle.
 func (r Rectifier) Netlist(title string, settleCycles int) (string, error) {
 	if err := r.Validate(); err != nil {
 		return "", err
@@ -45,10 +46,14 @@ func (r Rectifier) Netlist(title string, settleCycles int) (string, error) {
 		b.WriteString("D1 s1 vdc DREC\nD2 s2 vdc DREC\nD3 0 s1 DREC\nD4 0 s2 DREC\n")
 		// A floating secondary needs a DC path to ground while every diode is off.
 		b.WriteString("RLEAK s2 0 1e9\n")
+		// The winding's terminal voltage as a node, for its RMS.
+		b.WriteString("ESEC vsec 0 s1y s2 1\n")
 	case CenterTap:
 		fmt.Fprintf(&b, "V1 a 0 SIN(0 %s %s 0 0 0)\nV2 b 0 SIN(0 %s %s 0 0 180)\n", g(vp), g(r.Hz), g(vp), g(r.Hz))
 		fmt.Fprintf(&b, "RWA a a1 %s\nRWB b b1 %s\nVD1 a1 a2 DC 0\nVD2 b1 b2 DC 0\n", rs, rs)
 		b.WriteString("D1 a2 vdc DREC\nD2 b2 vdc DREC\n")
+		// The conducting half's terminal voltage (the larger of the two).
+		b.WriteString("BSEC vsec 0 V=max(v(a1),v(b1))\n")
 	case HalfWave:
 		fmt.Fprintf(&b, "V1 a 0 SIN(0 %s %s 0 0 0)\n", g(vp), g(r.Hz))
 		fmt.Fprintf(&b, "RW a a1 %s\nVD1 a1 a2 DC 0\nD1 a2 vdc DREC\n", rs)
@@ -68,9 +73,11 @@ func (r Rectifier) Netlist(title string, settleCycles int) (string, error) {
 	fmt.Fprintf(&b, ".options reltol=1e-4 abstol=1e-10 vntol=1e-7 itl4=100 temp=%s tnom=%s\n", g(temp), g(temp))
 	fmt.Fprintf(&b, ".tran %s %s 0 %s uic\n", g(dt), g(stop), g(dt))
 	from, to := g(stop-period), g(stop)
+	// The winding's terminal voltage, after its resistance.
+	vsec := map[Topology]string{Bridge: "v(vsec)", CenterTap: "v(vsec)", HalfWave: "v(a1)"}[r.Topology]
 	for _, m := range []struct{ name, fn, what string }{
 		{"peak", "MAX", "v(vdc)"}, {"trough", "MIN", "v(vdc)"}, {"mean", "AVG", "v(vdc)"},
-		{"icap", "RMS", "i(VIC)"}, {"idpk", "MAX", "i(VD1)"},
+		{"icap", "RMS", "i(VIC)"}, {"idpk", "MAX", "i(VD1)"}, {"vsec", "RMS", vsec},
 	} {
 		fmt.Fprintf(&b, ".meas tran %s %s %s FROM=%s TO=%s\n", m.name, m.fn, m.what, from, to)
 	}
