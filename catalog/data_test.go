@@ -35,8 +35,8 @@ func TestVariantPinouts(t *testing.T) {
 		{"1117-adj", "SOT-223", "", []string{"ADJ", "OUT", "IN"}, "OUT", "TI LM1117 SNOS412Q pin table: ADJ/GND 1, VOUT 2 and TAB, VIN 3"},
 		{"1085-fixed", "TO-220", "", []string{"GND", "OUT", "IN"}, "OUT", "TI LM1086 SNVS039J pin table (pin 1 ADJ/GND, pin 2 and TAB VOUT, pin 3 VIN); National LM1085 'same pin-out as LM317'"},
 		{"1086-fixed", "SOT-223", "", []string{"GND", "OUT", "IN"}, "OUT", "TI LM1086 SNVS039J pin table"},
-		{"317", "DPAK", "0.5 A (National MDT)", []string{"ADJ", "OUT", "IN"}, "OUT", "National LM117/LM317 connection diagrams: TO-252 as TO-220, tab = OUT"},
-		{"317", "DPAK", "1.5 A (TI KVU)", []string{"ADJ", "OUT", "IN"}, "OUT", "TI LM317 SLVS044 pin table (KVU as KCS, tab = OUTPUT)"},
+		{"317", "DPAK", "0.5 A National MDT", []string{"ADJ", "OUT", "IN"}, "OUT", "National LM117/LM317 connection diagrams: TO-252 as TO-220, tab = OUT"},
+		{"317", "DPAK", "1.5 A TI KVU", []string{"ADJ", "OUT", "IN"}, "OUT", "TI LM317 SLVS044 pin table (KVU as KCS, tab = OUTPUT)"},
 		{"337L", "TO-92", "", []string{"OUT", "ADJ", "IN"}, "none", "TI LM337L SNVS780E figure text: 'Pin 1. Output 2. Adjustment 3. Input'"},
 		{"2941", "TO-220-5", "", []string{"INH", "IN", "GND", "OUT", "ADJ"}, "GND", "TI LM2941 SNVS770G: ON/OFF on lead 1, off when high (pinout from memory)"},
 		{"2950", "TO-92", "", []string{"OUT", "GND", "IN"}, "none", "National LP2950 TO-92: 1 OUTPUT, 2 GND, 3 INPUT (from memory)"},
@@ -126,10 +126,19 @@ func TestCorrectedFigures(t *testing.T) {
 	}
 	// The 317's DPAK is sold at two ratings.
 	f := fam("317")
-	for variant, amps := range map[string]float64{"0.5 A (National MDT)": 0.5, "1.5 A (TI KVU)": 1.5} {
+	for variant, amps := range map[string]float64{"0.5 A National MDT": 0.5, "1.5 A TI KVU": 1.5} {
 		p := f.PackageVariant(c, "DPAK", variant)
 		if p == nil || f.Current(p) != amps {
 			t.Errorf("317 DPAK %s: want %g A (National LM317 MDT current limit 0.5 A min; TI LM317 KVU 1.5 A)", variant, amps)
+		}
+	}
+	// The 1117's SOT-223 is sold at 0.8 A by the original makers and 1 A by
+	// second sources.
+	f = fam("1117")
+	for variant, amps := range map[string]float64{"0.8 A National, TI, ST": 0.8, "1 A second sources": 1.0} {
+		p := f.PackageVariant(c, "SOT-223", variant)
+		if p == nil || f.Current(p) != amps {
+			t.Errorf("1117 SOT-223 %s: want %g A (National LM1117 800 mA; HTC LM1117 R1.22.3 1 A)", variant, amps)
 		}
 	}
 	// The 783's markings must not take a 7805's (issue 11: L78?5CV).
