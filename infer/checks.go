@@ -20,6 +20,7 @@ func (sc *scene) conflicts(res *Result) []string {
 	out = append(out, sc.inputSlip(res)...)
 	out = append(out, sc.markingSlip(res)...)
 	out = append(out, sc.reversedLeads(res)...)
+	out = append(out, sc.mirrorSlip(res)...)
 	// Voltages that fit no regulator's pinout at all.
 	regs, reversed := 0, 0
 	for _, c := range res.Candidates {

@@ -351,5 +351,5 @@ volts = 9.0
 	}
 	res, _ := infer.Identify(c, ev, infer.Options{})
 	fmt.Printf("%s %.2f\n", res.Candidates[0].Label(), res.Candidates[0].Probability)
-	// Output: 78Lxx TO-92 5 V 0.80
+	// Output: 78Lxx TO-92 5 V 0.81
 }

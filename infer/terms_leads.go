@@ -94,11 +94,28 @@ func termPackage(sc *scene, h Hypothesis, _ voltsView, r *reasons) {
 	switch {
 	case namesOutline(ev.Package, o):
 		r.add("package", 0.95, 1.0/12, "package %s named; this variant is %s", ev.Package, o.Name)
-	case named != nil && named.Leads != o.Leads:
-		r.add("package", 0.001, 1.0/12, "package %s named (%d leads), but this variant is %s (%d leads)", ev.Package, named.Leads, o.Name, o.Leads)
+	case named != nil && (named.Leads != o.Leads || named.SMD != o.SMD || named.MetalCan != o.MetalCan):
+		r.add("package", 0.001, 1.0/12, "package %s named, but this variant is %s: %s", ev.Package, o.Name, outlineDifference(named, o))
 	default:
 		r.add("package", 0.01, 1.0/12, "package %s named, but this variant is %s", ev.Package, o.Name)
 	}
+}
+
+// outlineDifference says how two outlines differ at a glance.
+func outlineDifference(a, b *catalog.Outline) string {
+	kind := func(o *catalog.Outline) string {
+		switch {
+		case o.MetalCan:
+			return "a metal can"
+		case o.SMD:
+			return "surface-mount"
+		}
+		return "through-hole"
+	}
+	if a.Leads != b.Leads {
+		return fmt.Sprintf("%d leads against %d", a.Leads, b.Leads)
+	}
+	return kind(a) + " against " + kind(b)
 }
 
 // packageContradicted reports whether the named package's lead count
