@@ -332,13 +332,11 @@ func troughAsk(ev *Evidence) *measurement {
 	}
 }
 
-// leadLevel names the level a lead of function fn sits at under h.
+// leadLevel names the level a lead of function fn sits at under h, in
+// words a technician reads off a meter.
 func leadLevel(h Hypothesis, fn string) string {
 	f := h.Family
-	sign := "+"
-	if f.Negative() {
-		sign = "−"
-	}
+	sign := f.SignText()
 	switch fn {
 	case catalog.PinIn:
 		return "the unregulated input (the largest voltage)"
@@ -354,8 +352,38 @@ func leadLevel(h Hypothesis, fn string) string {
 			return fmt.Sprintf("%s%s V, the output less the reference", sign, trimFloat(h.VoutV-f.VrefV))
 		}
 		return "the output less the reference"
+	case catalog.PinB, catalog.PinG:
+		if len(f.ControlDropV) == 2 {
+			return fmt.Sprintf("%.1f–%.1f V beyond the output lead (a transistor's control lead)", f.ControlDropV[0], f.ControlDropV[1])
+		}
+		return "a little beyond the output lead (a transistor's control lead)"
+	case catalog.PinC, catalog.PinD:
+		if f.Device.Polarity() == "negative" {
+			return "the output (a P-type transistor's collector or drain)"
+		}
+		return "the unregulated input (a collector or drain)"
+	case catalog.PinE, catalog.PinS:
+		if f.Device.Polarity() == "negative" {
+			return "the unregulated input (a P-type transistor's emitter or source)"
+		}
+		return "the output (an emitter or source)"
+	case catalog.PinRef:
+		return fmt.Sprintf("%s V above the anode (a shunt reference's REF)", trimFloat(f.VrefV))
+	case catalog.PinA:
+		return "ground (a shunt reference's anode)"
+	case catalog.PinK:
+		return "the rail it holds (a shunt reference's cathode)"
+	case catalog.PinSW:
+		return "about the output, switching (a switcher's switch node)"
+	case catalog.PinFB:
+		if h.VoutV > 0 {
+			return fmt.Sprintf("the output, %s%s V (a switcher's feedback)", sign, trimFloat(h.VoutV))
+		}
+		return fmt.Sprintf("%s V (a switcher's feedback)", trimFloat(f.VrefV))
+	case catalog.PinEn, catalog.PinInh:
+		return "ground or the input (an on/off lead)"
 	}
-	return "nothing"
+	return "nothing (not connected)"
 }
 
 // join joins the non-empty sentences with spaces.
