@@ -122,6 +122,9 @@ func tabPotential(in *Input, h infer.Hypothesis) (*float64, bool) {
 		return nil, false
 	}
 	cd := &in.Cond
+	if cd.OldTabV != nil && sameNode(in, h) && h.Family == in.Orig.Family {
+		v = *cd.OldTabV // the same part on the same net: what was measured there
+	}
 	if !hasHeatsink(in) {
 		return &v, false // nothing to touch: no heat sink
 	}

@@ -232,3 +232,12 @@ chassis_heatsink = true
 	// 340 TO-220 5 V drop-in
 	// 78xx TO-220 5 V drop-in
 }
+
+func mustRead(t *testing.T, name string) []byte {
+	t.Helper()
+	data, err := os.ReadFile(name)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return data
+}
