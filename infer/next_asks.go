@@ -14,6 +14,9 @@ const poweredSafety = "Powered measurement: mains may be present inside the equi
 	"Clip the meter's black lead to board ground before switching on, probe with one hand, and keep clear of the mains wiring; " +
 	"follow local codes and qualified practice."
 
+// noLead is the outcome of a lead measurement on a part with fewer leads.
+const noLead = "no such lead"
+
 // discharged is the start of every power-off prompt.
 const discharged = "Power off, unplugged, and the filter capacitors discharged (measure across them first)."
 
@@ -146,11 +149,16 @@ func continuityAsk(k int, sc askScope) measurement {
 		},
 		predict: func(h Hypothesis) outcomeDist {
 			if k > len(h.Package.Pins) {
-				return outcomeDist{"no such lead": 1}
+				return outcomeDist{noLead: 1}
 			}
 			return wiringDist(h.Family, h.Package.Pins[k-1])
 		},
-		describe: func(key string) string { return fmt.Sprintf("lead %d to %s", k, key) },
+		describe: func(key string) string {
+			if key == noLead {
+				return fmt.Sprintf("there is no lead %d", k)
+			}
+			return fmt.Sprintf("lead %d to %s", k, key)
+		},
 	}
 }
 
@@ -164,11 +172,16 @@ func voltageAsk(k int, sc askScope) measurement {
 		},
 		predict: func(h Hypothesis) outcomeDist {
 			if k > len(h.Package.Pins) {
-				return outcomeDist{"no such lead": 1}
+				return outcomeDist{noLead: 1}
 			}
 			return outcomeDist{leadLevel(h, h.Package.Pins[k-1]): 1}
 		},
-		describe: func(key string) string { return fmt.Sprintf("lead %d reads %s", k, key) },
+		describe: func(key string) string {
+			if key == noLead {
+				return fmt.Sprintf("there is no lead %d", k)
+			}
+			return fmt.Sprintf("lead %d reads %s", k, key)
+		},
 	}
 }
 
