@@ -275,19 +275,19 @@ func (s *Session) open() []Question {
 	// The most information per effort first: a look or a probe before an
 	// oscilloscope, both before a bench test.
 	sort.SliceStable(out, func(i, j int) bool {
-		return out[i].GainBits/effort(out[i].Key) > out[j].GainBits/effort(out[j].Key)
+		return out[i].GainBits/out[i].Effort() > out[j].GainBits/out[j].Effort()
 	})
 	return out
 }
 
-// effort is the relative work of a measurement, by its key: 1 for a look at
-// the part, an ohmmeter reading or one touch of a probe; 2 for a current
+// Effort is the relative work of the measurement, by its key: 1 for a look
+// at the part, an ohmmeter reading or one touch of a probe; 2 for a current
 // (the circuit broken or a shunt found) or an oscilloscope trace; 4 for a
 // bench test with the part fed from a bench supply. Common practice, no
 // source: the weights order questions of similar gain, they do not decide
 // when to stop.
-func effort(key string) float64 {
-	switch {
+func (q Question) Effort() float64 {
+	switch key := q.Key; {
 	case key == "package" || key == "marking" || strings.HasPrefix(key, "pins.") || strings.HasPrefix(key, "case."):
 		return 1
 	case strings.HasPrefix(key, "bench."):
