@@ -146,6 +146,7 @@ func isDateCode(q []byte) bool {
 type prefixRead struct {
 	ok    bool
 	maker string  // the maker prefix recognised ("LM"), "" when none
+	known int     // characters a logo or maker prefix explains
 	cost  float64 // unknown letters
 	text  string
 }
@@ -172,16 +173,16 @@ func readPrefix(p []byte) prefixRead {
 	}
 	s := string(p)
 	if m, ok := matchMaker(s); ok {
-		return prefixRead{ok: true, maker: m, text: "maker " + s}
+		return prefixRead{ok: true, maker: m, text: "maker " + s, known: len(s)}
 	}
 	for _, l := range logos {
 		if strings.HasPrefix(s, l) {
 			rest := s[len(l):]
 			if rest == "" {
-				return prefixRead{ok: true, text: "logo " + l}
+				return prefixRead{ok: true, text: "logo " + l, known: len(l)}
 			}
 			if m, ok := matchMaker(rest); ok {
-				return prefixRead{ok: true, maker: m, text: "logo " + l + ", maker " + rest}
+				return prefixRead{ok: true, maker: m, text: "logo " + l + ", maker " + rest, known: len(s)}
 			}
 		}
 	}
@@ -261,10 +262,14 @@ func makeCore(pattern, filled string, vout float64) core {
 	c := core{pattern: pattern, vout: vout, anchorL: !strings.HasPrefix(n, "*"), anchorR: !strings.HasSuffix(n, "*")}
 	n = strings.Trim(n, "*")
 	c.text = []byte(n)
-	first := strings.IndexAny(n, "0123456789")
-	if first > 0 {
-		if _, ok := makerPrefixes[n[:first]]; ok {
-			c.lead = first
+	letters := 0
+	for letters < len(n) && n[letters] >= 'A' && n[letters] <= 'Z' {
+		letters++
+	}
+	for k := letters; k > 0; k-- {
+		if _, ok := makerPrefixes[n[:k]]; ok {
+			c.lead = k // the pattern spells a maker prefix (*LM309*, *LF??C*)
+			break
 		}
 	}
 	last := strings.LastIndexAny(n, "0123456789")
@@ -353,6 +358,7 @@ func DecodeMarking(c *Catalog, text string) Decoded {
 		}
 		parts = append(parts, t)
 	}
+	parts = joinGroups(parts)
 	for _, t := range parts {
 		if t.tran != "" && d.Transistor == "" {
 			d.Transistor = t.tran
@@ -381,6 +387,42 @@ func DecodeMarking(c *Catalog, text string) Decoded {
 		return a.Family.Commonness > b.Family.Commonness
 	})
 	return d
+}
+
+// joinGroups adds, for two neighbouring groups of which one has no digit,
+// the two read as one ("LM 317T", "7805 CT": a number split over two lines
+// or typed with a space).
+func joinGroups(toks []token) []token {
+	n := len(toks)
+	for i := 0; i+1 < n; i++ {
+		a, b := toks[i], toks[i+1]
+		if hasDigit(a.q) && hasDigit(b.q) {
+			continue
+		}
+		j := token{raw: a.raw + b.raw}
+		j.q = append(append([]byte(nil), a.q...), b.q...)
+		j.alt = append(append([]byte(nil), a.alt...), b.alt...)
+		j.pos = append([]int(nil), a.pos...)
+		for _, p := range b.pos {
+			j.pos = append(j.pos, p+len(a.raw))
+		}
+		j.tran = transistorPrefix(j.q)
+		if j.tran != "" {
+			// BC 337 is a transistor: neither half is a regulator.
+			toks[i].tran, toks[i+1].tran = j.tran, j.tran
+		}
+		toks = append(toks, j)
+	}
+	return toks
+}
+
+func hasDigit(q []byte) bool {
+	for _, c := range q {
+		if c >= '0' && c <= '9' {
+			return true
+		}
+	}
+	return false
 }
 
 // hasPartNumber reports whether a marking has a group that is not a date code.

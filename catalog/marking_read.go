@@ -47,6 +47,36 @@ type candidate struct {
 	end     int
 }
 
+// coreCode returns the digits the query has where the pattern has a run of
+// ? (the voltage code of *LF??C*), when the number was read one character
+// for one (no star in either).
+func (r *reader) coreCode(cr *core, t *token, i, j int) (string, bool) {
+	c := cr.text
+	if cr.vout > 0 || j-i != len(c) || strings.IndexByte(string(c), '*') >= 0 || strings.IndexByte(string(t.q[i:j]), '*') >= 0 {
+		return "", false
+	}
+	a := strings.IndexByte(string(c), '?')
+	if a < 0 {
+		return "", false
+	}
+	b := a
+	for b < len(c) && c[b] == '?' {
+		b++
+	}
+	code := string(t.q[i+a : i+b])
+	for k := 0; k < len(code); k++ {
+		if !isDigit(code[k]) {
+			return "", false
+		}
+	}
+	return code, true
+}
+
+// known is how many characters around the number the tables explain: of
+// two readings with the same score, the one that explains more wins
+// ("7805 CT" read as one group names the package).
+func (cd *candidate) known() int { return cd.pre.known + cd.suf.known }
+
 // family returns the family's best reading of the marking, if any.
 func (r *reader) family(f *Family) (Hit, bool) {
 	nonReg := f.NonRegulator()
@@ -90,7 +120,8 @@ func (r *reader) family(f *Family) (Hit, bool) {
 					}
 					cd := r.judge(f, cr, ti, i, j, s, pre)
 					switch {
-					case best == nil || cd.score > best.score+1e-9:
+					case best == nil || cd.score > best.score+1e-9 ||
+						(math.Abs(cd.score-best.score) < 1e-9 && cd.known() > best.known() && cd.core.vout == best.core.vout):
 						cdc := cd
 						best, ties = &cdc, append(ties[:0], cd.volts...)
 					case math.Abs(cd.score-best.score) < 1e-9 && cr.vout > 0 && best.core.vout > 0:
@@ -165,6 +196,21 @@ func (r *reader) judge(f *Family, cr *core, ti, i, j int, s float64, pre prefixR
 	cd.suf = suf
 	cd.score -= suf.cost
 	cd.outline = suf.outline
+	if code, ok := r.coreCode(cr, t, i, j); ok && f.Kind == KindFixed {
+		// The pattern leaves the voltage code open (*LF??C*): read it.
+		for _, v := range codeVolts(code) {
+			if containsV(f.OutputsV, v) {
+				cd.volts = append(cd.volts, v)
+			}
+		}
+		if len(cd.volts) > 0 {
+			cd.score += float64(len(code))
+		} else {
+			cd.score--
+			cd.notes = append(cd.notes, fmt.Sprintf("the voltage code %s is not among the family's voltages", code))
+		}
+		return r.outlineCheck(f, cd)
+	}
 	switch {
 	case cr.vout > 0:
 		cd.volts = []float64{cr.vout}
@@ -197,6 +243,12 @@ func (r *reader) judge(f *Family, cr *core, ti, i, j int, s float64, pre prefixR
 	if len(cd.volts) == 0 && len(suf.volts) == 0 && !suf.adj && f.Kind == KindFixed && len(f.OutputsV) == 1 {
 		cd.volts = []float64{f.OutputsV[0]} // a family of one voltage
 	}
+	return r.outlineCheck(f, cd)
+}
+
+// outlineCheck names the outline as the family has it and costs an outline
+// the family is not sold in.
+func (r *reader) outlineCheck(f *Family, cd candidate) candidate {
 	if cd.outline != "" && len(f.Packages) > 0 && f.Package(r.c, cd.outline) == nil {
 		// T on a five-lead part is the five-lead TO-220 (LM2941CT).
 		for _, p := range f.Packages {
@@ -278,7 +330,7 @@ func (r *reader) byDevice(have []Hit) []Hit {
 	}
 	for ti := range r.toks {
 		t := &r.toks[ti]
-		if t.tran == "" {
+		if t.tran == "" || transistorPrefix(t.q) != t.tran {
 			continue
 		}
 		for _, f := range r.c.Sorted() {

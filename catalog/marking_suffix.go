@@ -65,10 +65,25 @@ var packageCodes = []packageCode{
 // commercial). onsemi MC7800/D (MC7805ACT, MC7805BT); ST L78 (L7805ABV).
 const gradeLetters = "ABCIE"
 
-// trailers are packing and lead-finish codes after the package: onsemi G
-// (Pb-free) and R4/T4 (reel), TI /NOPB, -TR tape and reel, X (National
-// tape), PBF (lead-free), E3. They say nothing about the part.
-var trailers = []string{"NOPB", "PBF", "TR", "R4", "T4", "T3", "T1", "E3", "G", "X", "R"}
+// trailer is a code after (or, for some makers, among) the grade and
+// package letters that says nothing about the part's function: packing,
+// lead finish, a maker's type or tolerance letter.
+type trailer struct {
+	code   string
+	makers []string // nil = every maker (then only after the first letter)
+}
+
+// trailers: onsemi G (Pb-free) and R4/T4/T3/T1 (reel), TI /NOPB, -TR tape
+// and reel, X (National tape), PBF (lead-free), E3 (finish); Torex XC6206
+// P (positive fixed type) and the accuracy digit after the voltage code;
+// Microchip MCP1700 T (tape), the 0x tolerance code and the E/I
+// temperature letter. The maker-specific rows are from memory.
+var trailers = []trailer{
+	{"NOPB", nil}, {"PBF", nil}, {"TR", nil}, {"R4", nil}, {"T4", nil}, {"T3", nil}, {"T1", nil},
+	{"E3", nil}, {"G", nil}, {"X", nil}, {"R", nil},
+	{"P", []string{"XC"}}, {"1", []string{"XC"}}, {"2", []string{"XC"}},
+	{"T", []string{"MCP"}}, {"01", []string{"MCP"}}, {"02", []string{"MCP"}}, {"E", []string{"MCP"}}, {"I", []string{"MCP"}},
+}
 
 // Costs of characters the suffix tables do not explain.
 const (
@@ -86,6 +101,7 @@ type suffixRead struct {
 	adj     bool      // ADJ
 	date    string    // a date code run on to the number
 	cost    float64
+	known   int      // characters the tables explain
 	text    string   // the suffix as read, "" when empty
 	notes   []string // what was not understood
 }
@@ -102,6 +118,7 @@ func readSuffix(s, maker string) suffixRead {
 	best := p.parse(0, stPre)
 	r.outline, r.code, r.volts, r.vtext, r.adj, r.date = best.outline, best.code, best.volts, best.vtext, best.adj, best.date
 	r.cost += best.cost
+	r.known = best.known
 	if best.unknown != "" {
 		r.notes = append(r.notes, fmt.Sprintf("%q not understood", best.unknown))
 	}
@@ -203,24 +220,31 @@ func (p *suffixParser) parse1(i, st int) parse {
 			return true
 		})
 	}
-	if st == stPost || i > 0 {
-		for _, t := range trailers {
-			if strings.HasPrefix(s[i:], t) {
-				try(len(t), stPost, func(*parse) bool { return true })
-			}
+	for _, t := range trailers {
+		if !strings.HasPrefix(s[i:], t.code) {
+			continue
+		}
+		if t.makers == nil && (st == stPost || i > 0) {
+			try(len(t.code), stPost, func(*parse) bool { return true })
+		}
+		if t.makers != nil && hasString(t.makers, p.maker) {
+			try(len(t.code), st, func(*parse) bool { return true })
 		}
 	}
 	if strings.HasPrefix(s[i:], "ADJ") {
 		try(3, stPost, func(r *parse) bool { r.adj = true; return len(r.volts) == 0 })
 	}
-	if n, vs, text := readVolts(s[i:]); n > 0 && (i == 0 || !isDigit(s[i-1])) {
-		try(n, stPost, func(r *parse) bool {
-			if len(r.volts) > 0 || r.adj {
-				return false
-			}
-			r.volts, r.vtext = vs, text
-			return true
-		})
+	if i == 0 || !isDigit(s[i-1]) {
+		for _, vc := range voltCodes(s[i:]) {
+			vc := vc
+			try(vc.n, stPost, func(r *parse) bool {
+				if len(r.volts) > 0 || r.adj {
+					return false
+				}
+				r.volts, r.vtext = vc.volts, vc.text
+				return true
+			})
+		}
 	}
 	if n := dateRun(s[i:]); n > 0 && i > 0 {
 		try(n, stPost, func(r *parse) bool { r.date = s[i : i+4]; return true })
@@ -228,49 +252,63 @@ func (p *suffixParser) parse1(i, st int) parse {
 	return best
 }
 
-// readVolts reads a voltage code at the start of s: "5.0", "3.3", "12",
-// "33" (3.3 or 33 V), "285" (2.85 V). It returns the characters used, the
-// voltages it can mean and the code as printed.
-func readVolts(s string) (int, []float64, string) {
+// voltCode is one way to read a voltage code at the start of a suffix.
+type voltCode struct {
+	n     int       // characters used
+	volts []float64 // the voltages it can mean
+	text  string    // as printed
+}
+
+// voltCodes returns the readings of a voltage code at the start of s: "5.0",
+// "3.3", "12", "33" (3.3 or 33 V), "285" (2.85 V); for a run of digits, its
+// first one, two and three digits (the rest may be a maker's tolerance
+// code: 332 = 3.3 V, ±2 %).
+func voltCodes(s string) []voltCode {
 	n := 0
-	for n < len(s) && n < 3 && isDigit(s[n]) {
+	for n < len(s) && isDigit(s[n]) {
 		n++
 	}
 	if n == 0 {
-		return 0, nil, ""
+		return nil
 	}
-	if n < len(s) && s[n] == '.' && n+1 < len(s) && isDigit(s[n+1]) {
+	if n <= 2 && n < len(s) && s[n] == '.' && n+1 < len(s) && isDigit(s[n+1]) {
 		m := n + 1
 		for m < len(s) && m < n+3 && isDigit(s[m]) {
 			m++
 		}
 		v, err := strconv.ParseFloat(s[:m], 64)
 		if err != nil || v == 0 {
-			return 0, nil, ""
+			return nil
 		}
-		return m, []float64{v}, s[:m]
+		return []voltCode{{m, []float64{v}, s[:m]}}
 	}
-	if n < len(s) && isDigit(s[n]) {
-		return 0, nil, "" // four digits or more: no voltage code
+	var out []voltCode
+	for k := 1; k <= min(n, 3); k++ {
+		if vs := codeVolts(s[:k]); len(vs) > 0 {
+			out = append(out, voltCode{k, vs, s[:k]})
+		}
 	}
-	d := s[:n]
+	return out
+}
+
+// codeVolts returns what a voltage code of one to three digits can mean.
+func codeVolts(d string) []float64 {
 	x, _ := strconv.Atoi(d)
 	if x == 0 {
-		return 0, nil, ""
+		return nil
 	}
-	var vs []float64
-	switch n {
+	switch len(d) {
 	case 1:
-		vs = []float64{float64(x)}
+		return []float64{float64(x)}
 	case 2:
-		vs = []float64{float64(x) / 10, float64(x)} // 33 = 3.3 V; 12 = 1.2 or 12 V
 		if d[0] == '0' {
-			vs = []float64{float64(x)} // 05 = 5 V
+			return []float64{float64(x)} // 05 = 5 V
 		}
+		return []float64{float64(x) / 10, float64(x)} // 33 = 3.3 V; 12 = 1.2 or 12 V
 	case 3:
-		vs = []float64{float64(x) / 100, float64(x) / 10} // 285 = 2.85 V, 120 = 12.0 V
+		return []float64{float64(x) / 100, float64(x) / 10} // 285 = 2.85 V, 120 = 12.0 V
 	}
-	return n, vs, d
+	return nil
 }
 
 // dateRun is 4 when s opens with a four-digit year-and-week group that ends

@@ -44,6 +44,8 @@ type markingCase struct {
 //	TI LM317L            SLCS144: LP = TO-92, D = SOIC-8
 //	TI LM138/LM338       SNVS771C: K = TO-3
 //	LT1083/84/85, LT1086 Linear Technology datasheets: CT = TO-220, CM = TO-263 (DD), K = TO-3
+//	onsemi MC78T00       "MC78T00 Series 3.0 A Positive Voltage Regulators": CT = TO-220
+//	LT1086 / LT1083/84/85 Fixed: -3.3, -3.6, -5 after the package letters
 //	practice             /work/shared/reference/practice.md §8: a four-digit group beside the number is usually a date code (year, week)
 var markingCases = []markingCase{
 	// Maker prefixes and package suffixes.
@@ -126,6 +128,32 @@ var markingCases = []markingCase{
 	{"LT1086CM", "1086", nil, "D2PAK", "LT1086: CM = TO-263 (DD), from memory"},
 	{"LM2941CT", "2941", nil, "TO-220-5", "Natl LM2941: T = the five-lead TO-220, from memory"},
 	{"LM2990T-5.0", "2990", []float64{5}, "TO-220", "Natl LM2990: T = TO-220, from memory"},
+	// Families added with issue 11.
+	{"MC78T05CT", "78Txx", []float64{5}, "TO-220", "onsemi MC78T00 (MC78T05CT)"},
+	{"MC78T12CT", "78Txx", []float64{12}, "TO-220", "onsemi MC78T00"},
+	{"LM78H05KC", "78Hxx", []float64{5}, "TO-3", "Natl LM78H05: KC = TO-3, from memory"},
+	{"LM337LZ", "337L", nil, "TO-92", "Natl LM337L: Z = TO-92, from memory"},
+	{"LM1117T-ADJ", "1117-adj", nil, "TO-220", "Natl LM1117 DS100919: LM1117T-ADJ"},
+	{"LM1117MPX-ADJ", "1117-adj", nil, "SOT-223", "Natl LM1117 DS100919: LM1117MPX-ADJ"},
+	{"LT1084CT-5", "1084-fixed", []float64{5}, "TO-220", "LT1083/84/85 Fixed: LT1084CT-5"},
+	{"LT1086CT-3.3", "1086-fixed", []float64{3.3}, "TO-220", "LT1086: LT1086CT-3.3"},
+	{"LT1086CM-3.6", "1086-fixed", []float64{3.6}, "D2PAK", "LT1086: LT1086CM-3.6 (CM = TO-263, from memory)"},
+	{"LP2950CZ-5.0", "2950", []float64{5}, "TO-92", "Natl LP2950: CZ = TO-92, from memory"},
+	{"LP2950ACZ-3.3", "2950", []float64{3.3}, "TO-92", "Natl LP2950: ACZ = TO-92, from memory"},
+	{"LM2931AZ-5.0", "2931", []float64{5}, "TO-92", "Natl / onsemi LM2931: Z = TO-92, from memory"},
+	{"LM2931T-5.0", "2931", []float64{5}, "TO-220", "Natl LM2931: T = TO-220, from memory"},
+	{"LM2931M-5.0", "2931", []float64{5}, "SO-8", "Natl LM2931: M = SO-8, from memory"},
+	{"LM3940IT-3.3", "3940", []float64{3.3}, "TO-220", "Natl LM3940: IT = TO-220, from memory"},
+	{"LM3940IMP-3.3", "3940", []float64{3.3}, "SOT-223", "Natl LM3940: IMP = SOT-223, from memory"},
+	{"LF33CV", "LFxx", []float64{3.3}, "TO-220", "ST LFxx: LF33CV, from memory"},
+	{"LF50CDT", "LFxx", []float64{5}, "DPAK", "ST LFxx: LF50CDT, from memory"},
+	{"LF120CV", "LFxx", []float64{12}, "TO-220", "ST LFxx: LF120CV, from memory"},
+	{"LF85CP", "LFxx", []float64{8.5}, "TO-220FP", "ST LFxx: LF85CP, from memory"},
+	{"HT7333", "73xx", []float64{3.3}, "", "Holtek HT73xx: 33 = 3.3 V, from memory"},
+	{"HT7350", "73xx", []float64{5}, "", "Holtek HT73xx: 50 = 5.0 V, from memory"},
+	{"XC6206P332MR", "6206", []float64{3.3}, "SOT-23", "Torex XC6206: P, 33, accuracy 2, MR = SOT-23, from memory"},
+	{"MCP1700T-3302E/TT", "1700", []float64{3.3}, "SOT-23", "Microchip MCP1700: 33 = 3.3 V, 02 = ±2 %, TT = SOT-23, from memory"},
+	{"MCP1700-5002E/TO", "1700", []float64{5}, "TO-92", "Microchip MCP1700: TO = TO-92, from memory"},
 	// Date codes beside the number (practice §8).
 	{"LM317T 7812", "317", nil, "TO-220", "practice: 7812 = 1978 week 12, not a 12 V 78xx"},
 	{"LM7805CT 8523", "78xx", []float64{5}, "TO-220", "practice: 8523 = 1985 week 23"},
@@ -319,6 +347,27 @@ func TestResolve(t *testing.T) {
 		}
 		if got != tt.want {
 			t.Errorf("Resolve(%q) = %q, want %q", tt.name, got, tt.want)
+		}
+	}
+}
+
+// TestMarkingGroups: a number split over two groups is read as one; a
+// transistor number split so is still no regulator.
+func TestMarkingGroups(t *testing.T) {
+	c := builtinCatalog(t)
+	for _, tt := range []struct{ q, family, outline string }{
+		{"LM 317T", "317", "TO-220"},
+		{"7805 CT", "78xx", "TO-220"},
+		{"ST L7805CV", "78xx", "TO-220"},
+	} {
+		h := firstHit(catalog.Find(c, tt.q))
+		if h == nil || h.Family.ID != tt.family || h.Outline != tt.outline {
+			t.Errorf("Find(%q) = %+v, want %s %s", tt.q, h, tt.family, tt.outline)
+		}
+	}
+	for _, h := range catalog.Find(c, "BC 337") {
+		if !h.Family.NonRegulator() {
+			t.Errorf("BC 337 found regulator %s", h.Family.ID)
 		}
 	}
 }

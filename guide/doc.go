@@ -27,6 +27,13 @@
 // each accepted answer (and each undo) the session calls [Options.Save] with
 // the whole document, which the front end writes atomically.
 //
+// # Which question
+//
+// The identification ranks the open measurements by expected information
+// gain; the session asks the one with the most gain per effort (a look or a
+// probe before an oscilloscope, both before a bench test), among those
+// expected to gain at least [Options.MinGain].
+//
 // # Stopping
 //
 // The session ends when the leader reaches [Options.Stop] (95 %), or when no

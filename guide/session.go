@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"slices"
+	"sort"
 	"strconv"
 	"strings"
 
@@ -197,8 +198,8 @@ func (s *Session) Next() Step {
 		switch {
 		case lead.Probability >= s.opts.Stop:
 			st.Done = s.finish(fmt.Sprintf("the leader reached %.0f %%", 100*s.opts.Stop))
-		case len(qs) > 0 && qs[0].GainBits >= s.opts.MinGain:
-			st.Ask = &qs[0]
+		case worth(qs, s.opts.MinGain) >= 0:
+			st.Ask = &qs[worth(qs, s.opts.MinGain)]
 		case lv != nil:
 			st.Ask = lv
 		default:
@@ -206,6 +207,17 @@ func (s *Session) Next() Step {
 		}
 	}
 	return st
+}
+
+// worth returns the index of the first question expected to gain at least
+// min bits, or -1.
+func worth(qs []Question, min float64) int {
+	for i, q := range qs {
+		if q.GainBits >= min {
+			return i
+		}
+	}
+	return -1
 }
 
 // leadVoltage returns the first open question for a lead's voltage.
@@ -260,7 +272,28 @@ func (s *Session) open() []Question {
 			out = append(out, q)
 		}
 	}
+	// The most information per effort first: a look or a probe before an
+	// oscilloscope, both before a bench test.
+	sort.SliceStable(out, func(i, j int) bool {
+		return out[i].GainBits/out[i].Effort() > out[j].GainBits/out[j].Effort()
+	})
 	return out
+}
+
+// Effort is the relative work of the measurement, by its key: 1 for a look
+// at the part, an ohmmeter reading or one touch of a probe; 2 for a current
+// (the circuit broken or a shunt found) or an oscilloscope trace; 4 for a
+// bench test with the part fed from a bench supply. Common practice, no
+// source: the weights order questions of similar gain, they do not decide
+// when to stop.
+func (q Question) Effort() float64 {
+	switch key := q.Key; {
+	case key == "package" || key == "marking" || strings.HasPrefix(key, "pins.") || strings.HasPrefix(key, "case."):
+		return 1
+	case strings.HasPrefix(key, "bench."):
+		return 4
+	}
+	return 2
 }
 
 // Reply takes one line typed by the technician. The error is not nil only
@@ -410,7 +443,7 @@ func (s *Session) start(ref string) (Reply, error) {
 }
 
 // newHeader opens an evidence file the guide starts.
-const newHeader = `# Evidence about one unmarked regulator, written by 'whichreg guide'.
+const newHeader = `# Evidence about one unmarked three-terminal part, written by 'whichreg guide'.
 # Every value is as it was measured; edit by hand or run the guide again.
 `
 

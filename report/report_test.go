@@ -142,3 +142,21 @@ func TestSig(t *testing.T) {
 		}
 	}
 }
+
+func TestReflowMarkdown(t *testing.T) {
+	in := "# A heading that is long enough to pass the width but stays\n\n" +
+		"A paragraph of several words that runs past the width\nand goes on.\n\n" +
+		"- a list item whose text runs past the width of the page\n" +
+		"- short\n\n" +
+		"| check | value | why |\n| --- | --- | --- |\n| vout | 5 V \\| 6 V | the output is what the divider gives |\n\n" +
+		"| a | b |\n| --- | --- |\n| 1 | 2 |\n"
+	want := "# A heading that is long enough to pass the width but stays\n\n" +
+		"A paragraph of several words\nthat runs past the width and\ngoes on.\n\n" +
+		"- a list item whose text runs\n  past the width of the page\n" +
+		"- short\n\n" +
+		"- **vout**: value 5 V | 6 V;\n  the output is what the\n  divider gives\n\n" +
+		"| a | b |\n| --- | --- |\n| 1 | 2 |\n"
+	if diff := cmp.Diff(want, ReflowMarkdown(in, 30)); diff != "" {
+		t.Errorf("ReflowMarkdown mismatch (-want +got):\n%s", diff)
+	}
+}

@@ -252,9 +252,16 @@ func (t *textGuide) step(st guide.Step, _ *guide.Reply) {
 	t.line("")
 	t.ranking(st.Ranking)
 	if st.Pick != nil {
-		t.line("Other measurements worth making:")
+		t.line("Other measurements worth making, the most information per effort first:")
 		for i, q := range st.Pick {
-			t.fill(fmt.Sprintf("%s (%.2f bit) [%s]", q.Measure, q.GainBits, q.Key), fmt.Sprintf("%3d. ", i+1), "     ")
+			work := ""
+			switch e := q.Effort(); {
+			case e >= 4:
+				work = "; a bench test"
+			case e > 1:
+				work = "; more work"
+			}
+			t.fill(fmt.Sprintf("%s (%.2f bit%s) [%s]", q.Measure, q.GainBits, work, q.Key), fmt.Sprintf("%3d. ", i+1), "     ")
 		}
 		fmt.Fprint(t.w, "Pick a number (Enter to go on): ")
 		return

@@ -12,6 +12,7 @@ import (
 	"github.com/whichreg/whichreg/catalog"
 	"github.com/whichreg/whichreg/infer/replace"
 	"github.com/whichreg/whichreg/record"
+	"github.com/whichreg/whichreg/report"
 )
 
 type recordOptions struct {
@@ -111,12 +112,22 @@ func recordRun(o *recordOptions) error {
 	}
 	var buf bytes.Buffer
 	if o.Format == "json" {
-		err = record.WriteJSON(&buf, rec)
+		err = writeRecordJSON(&buf, rec)
 	} else {
 		err = record.WriteMarkdown(&buf, rec, img)
 	}
 	if err != nil {
 		return ioError(err)
+	}
+	if o.Format != "json" {
+		// A record file is 80 columns (or --width) wherever it was made.
+		width := defaultWidth
+		if o.Output == "" || o.Output == "-" || o.app.widthFlag > 0 {
+			width = o.app.Width()
+		}
+		reflowed := report.ReflowMarkdown(buf.String(), width)
+		buf.Reset()
+		buf.WriteString(reflowed)
 	}
 	return writeRecordFiles(o, buf.Bytes(), files)
 }

@@ -54,8 +54,8 @@ func TestSwapJSONFields(t *testing.T) {
 	if code := run(app, []string{"swap", "../../testdata/demo/bench-supply-negative.toml", "--format", "json"}); code != 0 {
 		t.Fatalf("exit %d", code)
 	}
-	for _, field := range []string{`"original"`, `"family"`, `"package"`, `"vout"`, `"probability"`, `"replacements"`, `"verdict"`,
-		`"checks"`, `"check"`, `"value"`, `"limit"`, `"margin"`, `"status"`, `"text"`, `"install"`, `"assumptions"`} {
+	for _, field := range []string{`"schema": "whichreg/swap/v1"`, `"original"`, `"family"`, `"outline"`, `"vout_v"`, `"probability"`, `"replacements"`, `"verdict"`,
+		`"checks"`, `"check"`, `"value"`, `"limit"`, `"unit"`, `"margin"`, `"status"`, `"text"`, `"install"`, `"assumptions"`} {
 		if !strings.Contains(out.String(), field) {
 			t.Errorf("swap JSON lacks %s", field)
 		}
@@ -67,6 +67,34 @@ func BenchmarkInferCommand(b *testing.B) {
 	for b.Loop() {
 		app, _, _ := testApp()
 		if code := run(app, []string{"infer", "../../testdata/demo/bench-supply-negative.toml"}); code != 0 {
+			b.Fatal(code)
+		}
+	}
+}
+
+// BenchmarkRootCmd: building the command tree, which every run pays.
+func BenchmarkRootCmd(b *testing.B) {
+	for b.Loop() {
+		app, _, _ := testApp()
+		_ = newRootCmd(app)
+	}
+}
+
+// BenchmarkVersion: the least a run does (the tree, flag parsing, one line).
+func BenchmarkVersion(b *testing.B) {
+	for b.Loop() {
+		app, _, _ := testApp()
+		if code := run(app, []string{"--version"}); code != 0 {
+			b.Fatal(code)
+		}
+	}
+}
+
+// BenchmarkInferNoRectifier: infer on a demo without a rectifier model.
+func BenchmarkInferNoRectifier(b *testing.B) {
+	for b.Loop() {
+		app, _, _ := testApp()
+		if code := run(app, []string{"infer", "../../testdata/demo/controller-to3-case.toml"}); code != 0 {
 			b.Fatal(code)
 		}
 	}

@@ -42,49 +42,52 @@ func Set(doc []byte, key string, v any) ([]byte, error) {
 	if err != nil {
 		return nil, fmt.Errorf("setting %s: %v", key, err)
 	}
-	path, err := parseKey(key)
-	if err != nil {
+	src, sts, path, at, err := locate(doc, key, "setting")
+	switch {
+	case err != nil:
 		return nil, err
+	case at >= 0:
+		return []byte(replaceValue(src, sts[at], lit)), nil
 	}
-	src := string(doc)
-	sts, err := lex(src)
-	if err != nil {
-		return nil, fmt.Errorf("setting %s: %w", key, err)
-	}
-	if err := checkPath(sts, path, key); err != nil {
-		return nil, err
-	}
-	for _, st := range sts {
-		if st.kind == stmtKeyVal && slices.Equal(st.path, path) {
-			return []byte(replaceValue(src, st, lit)), nil
-		}
-	}
-	at, text := insertion(sts, src, path, lit)
-	return []byte(src[:at] + text + src[at:]), nil
+	pos, text := insertion(sts, src, path, lit)
+	return []byte(src[:pos] + text + src[pos:]), nil
 }
 
 // Remove returns doc without the lines of key. It returns [ErrNotFound]
 // when doc has no such key, and an error wrapping [ErrUnsupported] for a
 // key inside an inline table.
 func Remove(doc []byte, key string) ([]byte, error) {
-	path, err := parseKey(key)
-	if err != nil {
+	src, sts, _, at, err := locate(doc, key, "removing")
+	switch {
+	case err != nil:
 		return nil, err
+	case at < 0:
+		return nil, fmt.Errorf("removing %s: %w", key, ErrNotFound)
 	}
-	src := string(doc)
-	sts, err := lex(src)
+	return []byte(src[:sts[at].start] + src[sts[at].end:]), nil
+}
+
+// locate lexes doc, checks that key can be edited, and returns the
+// statement that holds key (at = -1 when none does).
+func locate(doc []byte, key, verb string) (src string, sts []stmt, path []string, at int, err error) {
+	path, err = parseKey(key)
 	if err != nil {
-		return nil, fmt.Errorf("removing %s: %w", key, err)
+		return "", nil, nil, -1, err
+	}
+	src = string(doc)
+	sts, err = lex(src)
+	if err != nil {
+		return "", nil, nil, -1, fmt.Errorf("%s %s: %w", verb, key, err)
 	}
 	if err := checkPath(sts, path, key); err != nil {
-		return nil, err
+		return "", nil, nil, -1, err
 	}
-	for _, st := range sts {
+	for i, st := range sts {
 		if st.kind == stmtKeyVal && slices.Equal(st.path, path) {
-			return []byte(src[:st.start] + src[st.end:]), nil
+			return src, sts, path, i, nil
 		}
 	}
-	return nil, fmt.Errorf("removing %s: %w", key, ErrNotFound)
+	return src, sts, path, -1, nil
 }
 
 // parseKey splits a dotted key as TOML does.

@@ -8,6 +8,7 @@ import (
 	"sort"
 	"strconv"
 	"strings"
+	"sync"
 	"unicode/utf8"
 
 	"github.com/BurntSushi/toml"
@@ -122,7 +123,12 @@ func (l ErrorList) Error() string {
 	return fmt.Sprintf("%s (and %d more errors)", l[0], len(l)-1)
 }
 
-var typeErrRE = regexp.MustCompile(`^toml: (?:line (\d+) )?\(last key "([^"]*)"\): (.*)$`)
+// typeErrRE reads the line and key out of the TOML library's type errors.
+// It is compiled on first use: most runs never meet a type error, and a
+// compiled regexp at package initialisation costs every start of the tool.
+var typeErrRE = sync.OnceValue(func() *regexp.Regexp {
+	return regexp.MustCompile(`^toml: (?:line (\d+) )?\(last key "([^"]*)"\): (.*)$`)
+})
 
 // Decode decodes the TOML document data strictly into v: syntax errors, type
 // errors and every key that v has no field for are returned as positioned
@@ -158,7 +164,7 @@ func Decode(file string, data []byte, v any, hint string) (lz *Lazy, errs ErrorL
 			errs = append(errs, e)
 			return lz, errs, false
 		}
-		if m := typeErrRE.FindStringSubmatch(err.Error()); m != nil {
+		if m := typeErrRE().FindStringSubmatch(err.Error()); m != nil {
 			line, _ := strconv.Atoi(m[1])
 			e := &Error{File: file, Line: line, Key: m[2], Err: errors.New(m[3])}
 			for _, ent := range lz.Index() {
