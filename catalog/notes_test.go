@@ -65,3 +65,30 @@ source = "invented for a test"
 		}
 	}
 }
+
+// TestLintAdded checks that only what user files add is linted, and
+// everything when they define an outline.
+func TestLintAdded(t *testing.T) {
+	base, _ := builtin.Files()
+	if errs := catalog.LintAdded(catalog.Merge(base...)); len(errs) > 0 {
+		t.Errorf("nothing added, yet: %v", errs)
+	}
+	// A user outline that replaces TO-220 with two leads breaks every
+	// built-in TO-220 package: LintAdded must see it.
+	f, errs := catalog.Load("to220.toml", []byte(`[[outline]]
+name = "TO-220"
+leads = 2
+pitch_mm = 2.54
+tab = true
+mounting_hole = true
+view = "marked face toward you"
+source = "invented for a test"
+`))
+	if len(errs) > 0 {
+		t.Fatal(errs)
+	}
+	c := catalog.Merge(append(base, f)...)
+	if got := catalog.LintAdded(c, f); len(got) == 0 {
+		t.Error("a replaced TO-220 with two leads lints clean")
+	}
+}

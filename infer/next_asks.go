@@ -14,6 +14,9 @@ const poweredSafety = "Powered measurement: mains may be present inside the equi
 	"Clip the meter's black lead to board ground before switching on, probe with one hand, and keep clear of the mains wiring; " +
 	"follow local codes and qualified practice."
 
+// noLead is the outcome of a lead measurement on a part with fewer leads.
+const noLead = "no such lead"
+
 // discharged is the start of every power-off prompt.
 const discharged = "Power off, unplugged, and the filter capacitors discharged (measure across them first)."
 
@@ -146,11 +149,16 @@ func continuityAsk(k int, sc askScope) measurement {
 		},
 		predict: func(h Hypothesis) outcomeDist {
 			if k > len(h.Package.Pins) {
-				return outcomeDist{"no such lead": 1}
+				return outcomeDist{noLead: 1}
 			}
 			return wiringDist(h.Family, h.Package.Pins[k-1])
 		},
-		describe: func(key string) string { return fmt.Sprintf("lead %d to %s", k, key) },
+		describe: func(key string) string {
+			if key == noLead {
+				return fmt.Sprintf("there is no lead %d", k)
+			}
+			return fmt.Sprintf("lead %d to %s", k, key)
+		},
 	}
 }
 
@@ -164,11 +172,16 @@ func voltageAsk(k int, sc askScope) measurement {
 		},
 		predict: func(h Hypothesis) outcomeDist {
 			if k > len(h.Package.Pins) {
-				return outcomeDist{"no such lead": 1}
+				return outcomeDist{noLead: 1}
 			}
 			return outcomeDist{leadLevel(h, h.Package.Pins[k-1]): 1}
 		},
-		describe: func(key string) string { return fmt.Sprintf("lead %d reads %s", k, key) },
+		describe: func(key string) string {
+			if key == noLead {
+				return fmt.Sprintf("there is no lead %d", k)
+			}
+			return fmt.Sprintf("lead %d reads %s", k, key)
+		},
 	}
 }
 
@@ -332,13 +345,11 @@ func troughAsk(ev *Evidence) *measurement {
 	}
 }
 
-// leadLevel names the level a lead of function fn sits at under h.
+// leadLevel names the level a lead of function fn sits at under h, in
+// words a technician reads off a meter.
 func leadLevel(h Hypothesis, fn string) string {
 	f := h.Family
-	sign := "+"
-	if f.Negative() {
-		sign = "−"
-	}
+	sign := f.SignText()
 	switch fn {
 	case catalog.PinIn:
 		return "the unregulated input (the largest voltage)"
@@ -354,8 +365,38 @@ func leadLevel(h Hypothesis, fn string) string {
 			return fmt.Sprintf("%s%s V, the output less the reference", sign, trimFloat(h.VoutV-f.VrefV))
 		}
 		return "the output less the reference"
+	case catalog.PinB, catalog.PinG:
+		if len(f.ControlDropV) == 2 {
+			return fmt.Sprintf("%.1f–%.1f V beyond the output lead (a transistor's control lead)", f.ControlDropV[0], f.ControlDropV[1])
+		}
+		return "a little beyond the output lead (a transistor's control lead)"
+	case catalog.PinC, catalog.PinD:
+		if f.Device.Polarity() == "negative" {
+			return "the output (a P-type transistor's collector or drain)"
+		}
+		return "the unregulated input (a collector or drain)"
+	case catalog.PinE, catalog.PinS:
+		if f.Device.Polarity() == "negative" {
+			return "the unregulated input (a P-type transistor's emitter or source)"
+		}
+		return "the output (an emitter or source)"
+	case catalog.PinRef:
+		return fmt.Sprintf("%s V above the anode (a shunt reference's REF)", trimFloat(f.VrefV))
+	case catalog.PinA:
+		return "ground (a shunt reference's anode)"
+	case catalog.PinK:
+		return "the rail it holds (a shunt reference's cathode)"
+	case catalog.PinSW:
+		return "about the output, switching (a switcher's switch node)"
+	case catalog.PinFB:
+		if h.VoutV > 0 {
+			return fmt.Sprintf("the output, %s%s V (a switcher's feedback)", sign, trimFloat(h.VoutV))
+		}
+		return fmt.Sprintf("%s V (a switcher's feedback)", trimFloat(f.VrefV))
+	case catalog.PinEn, catalog.PinInh:
+		return "ground or the input (an on/off lead)"
 	}
-	return "nothing"
+	return "nothing (not connected)"
 }
 
 // join joins the non-empty sentences with spaces.
