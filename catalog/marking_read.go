@@ -282,11 +282,10 @@ func (r *reader) hit(f *Family, cd *candidate) Hit {
 		parts = append(parts, cd.pre.text)
 	}
 	var looks []string
-	for k := cd.start; k < cd.end && k < len(t.q); k++ {
-		for _, c := range cd.core.text {
-			if t.alt[k] == c && t.q[k] != c {
-				looks = append(looks, fmt.Sprintf("%c as %c", t.q[k], c))
-				break
+	if c := cd.core.text; cd.end-cd.start == len(c) && !strings.ContainsRune(string(t.q[cd.start:cd.end])+string(c), '*') {
+		for k := range c {
+			if q := t.q[cd.start+k]; q != c[k] && t.alt[cd.start+k] == c[k] {
+				looks = append(looks, fmt.Sprintf("%c as %c", q, c[k]))
 			}
 		}
 	}

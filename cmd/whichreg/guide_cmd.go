@@ -248,6 +248,11 @@ func (t *textGuide) step(st guide.Step, _ *guide.Reply) {
 	if !t.shown {
 		t.shown = true
 		t.fill("Answer each question with a value, or skip, back, why, list, help or quit. Every answer is saved at once.", "", "")
+		if st.Ranking != nil {
+			for _, c := range st.Ranking.Conflicts {
+				t.fill(c, "CONFLICT in the file: ", "    ")
+			}
+		}
 	}
 	t.line("")
 	t.ranking(st.Ranking)

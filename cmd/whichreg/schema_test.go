@@ -38,6 +38,7 @@ var jsonCases = []struct {
 	{"catalog-show-negative", []string{"catalog", "show", "79xx", "--format", "json"}, "catalog-show", ""},
 	{"catalog-find", []string{"catalog", "find", "?M3?7", "--format", "json"}, "catalog-find", "hits query schema"},
 	{"catalog-find-suffix", []string{"catalog", "find", "L7805CV", "--format", "json"}, "catalog-find", ""},
+	{"catalog-find-transistor", []string{"catalog", "find", "2N6338", "--format", "json"}, "catalog-find", ""},
 	{"catalog-check", []string{"catalog", "check", "--format", "json"}, "catalog-check", "families outlines problems schema"},
 	{"catalog-paths", []string{"catalog", "paths", "--format", "json"}, "catalog-paths", "files schema user_catalog_dir user_catalog_used"},
 	{"calc-rectifier", []string{"calc", "rectifier", "--vrms", "12.6", "--cap", "2200u", "--load", "0.8", "--format", "json"}, "calc-rectifier",
