@@ -14,6 +14,9 @@ const poweredSafety = "Powered measurement: mains may be present inside the equi
 	"Clip the meter's black lead to board ground before switching on, probe with one hand, and keep clear of the mains wiring; " +
 	"follow local codes and qualified practice."
 
+// benchEffort is the effort of a bench test against a meter reading.
+const benchEffort = 4
+
 // noLead is the outcome of a lead measurement on a part with fewer leads.
 const noLead = "no such lead"
 
@@ -27,6 +30,12 @@ type measurement struct {
 	Measurement
 	predict  func(h Hypothesis) outcomeDist
 	describe func(key string) string // an outcome key in words
+	// effort is the relative work of a measurement that takes rework (a
+	// bench supply or a test load in place of the circuit's own); the
+	// suggestions are ordered by expected gain per effort, so such a test
+	// comes after readings of similar gain (judgement: common practice, no
+	// source). 0 = a reading.
+	effort float64
 }
 
 // askScope is what the leaders say about the part's outline: how many
@@ -286,6 +295,7 @@ func dropoutAsk(ev *Evidence) measurement {
 			return outcomeDist{dropoutBucket(d): 1}
 		},
 		describe: func(key string) string { return "drops out at " + key },
+		effort:   benchEffort,
 	}
 }
 
@@ -318,6 +328,7 @@ func holdsAsk(hs []Candidate) measurement {
 			return outcomeDist{fmt.Sprintf("about %.3g A", math.Min(top, h.Family.Current(h.Package))): 1}
 		},
 		describe: func(key string) string { return "holds " + key },
+		effort:   benchEffort,
 	}
 }
 
