@@ -27,7 +27,17 @@
 // [Family.Markings] are wildcard patterns of what is printed on a part:
 // "?" stands for one character and "*" for any run. In a fixed family the
 // token "{VV}" stands for the voltage code of each output (05 for 5 V, 12 for
-// 12 V, 85 for 8.5 V). [Find] matches a partial marking, which may itself
-// contain "?" and "*", against these patterns, and falls back to fuzzy
-// matching.
+// 12 V, 85 for 8.5 V); a run of "?" in a fixed family's pattern
+// ("*LF??C*") is read as a voltage code too.
+//
+// [DecodeMarking] reads a marking as it is printed: a maker's prefix or a
+// logo read as letters (LM, MC, L, µA, KA, …), the number a pattern names,
+// then grade, package and voltage suffixes from the makers' ordering tables
+// (LM7805CT: TO-220, 5 V; LD1117V33: TO-220, 3.3 V; LM2940CT-5.0). A
+// four-digit year-and-week group beside the number is left out, O/0, I/1,
+// B/8, S/5, Z/2 and G/6 are tried at half a character, a "*" in the marking
+// never stands for the first character of a number, and a transistor type
+// prefix (BC, 2N, TIP, IRF, …) finds only the non-regulator families. [Find]
+// adds fuzzy matches of the legible characters; [Resolve] turns a part
+// number into the one family it reads as.
 package catalog

@@ -46,6 +46,8 @@ type markingCase struct {
 //	LT1083/84/85, LT1086 Linear Technology datasheets: CT = TO-220, CM = TO-263 (DD), K = TO-3
 //	onsemi MC78T00       "MC78T00 Series 3.0 A Positive Voltage Regulators": CT = TO-220
 //	LT1086 / LT1083/84/85 Fixed: -3.3, -3.6, -5 after the package letters
+//	ST LFxx Doc ID 2574  "LFxxAB, LFxxC very low drop voltage regulators with inhibit" Rev 25 (Feb 2012): LF15…LF120 + AB/C
+//	onsemi LP2950/D      "LP2950, LP2951 100 mA low power LDO": Z = TO-92 (case 29), DT = DPAK (case 369C)
 //	practice             /work/shared/reference/practice.md §8: a four-digit group beside the number is usually a date code (year, week)
 var markingCases = []markingCase{
 	// Maker prefixes and package suffixes.
@@ -138,17 +140,17 @@ var markingCases = []markingCase{
 	{"LT1084CT-5", "1084-fixed", []float64{5}, "TO-220", "LT1083/84/85 Fixed: LT1084CT-5"},
 	{"LT1086CT-3.3", "1086-fixed", []float64{3.3}, "TO-220", "LT1086: LT1086CT-3.3"},
 	{"LT1086CM-3.6", "1086-fixed", []float64{3.6}, "D2PAK", "LT1086: LT1086CM-3.6 (CM = TO-263, from memory)"},
-	{"LP2950CZ-5.0", "2950", []float64{5}, "TO-92", "Natl LP2950: CZ = TO-92, from memory"},
-	{"LP2950ACZ-3.3", "2950", []float64{3.3}, "TO-92", "Natl LP2950: ACZ = TO-92, from memory"},
+	{"LP2950CZ-5.0", "2950", []float64{5}, "TO-92", "onsemi LP2950/D: Z = TO-92 (case 29)"},
+	{"LP2950ACZ-3.3", "2950", []float64{3.3}, "TO-92", "onsemi LP2950/D: Z = TO-92, A = ±0.5 % grade"},
 	{"LM2931AZ-5.0", "2931", []float64{5}, "TO-92", "Natl / onsemi LM2931: Z = TO-92, from memory"},
 	{"LM2931T-5.0", "2931", []float64{5}, "TO-220", "Natl LM2931: T = TO-220, from memory"},
 	{"LM2931M-5.0", "2931", []float64{5}, "SO-8", "Natl LM2931: M = SO-8, from memory"},
 	{"LM3940IT-3.3", "3940", []float64{3.3}, "TO-220", "Natl LM3940: IT = TO-220, from memory"},
 	{"LM3940IMP-3.3", "3940", []float64{3.3}, "SOT-223", "Natl LM3940: IMP = SOT-223, from memory"},
-	{"LF33CV", "LFxx", []float64{3.3}, "TO-220", "ST LFxx: LF33CV, from memory"},
-	{"LF50CDT", "LFxx", []float64{5}, "DPAK", "ST LFxx: LF50CDT, from memory"},
-	{"LF120CV", "LFxx", []float64{12}, "TO-220", "ST LFxx: LF120CV, from memory"},
-	{"LF85CP", "LFxx", []float64{8.5}, "TO-220FP", "ST LFxx: LF85CP, from memory"},
+	{"LF33CV", "LFxx", []float64{3.3}, "TO-220", "ST LFxx Doc ID 2574 Rev 25: LF33C; V = TO-220 as ST L78, from memory"},
+	{"LF50CDT", "LFxx", []float64{5}, "DPAK", "ST LFxx Doc ID 2574 Rev 25: LF50C; DT = DPAK as ST L78, from memory"},
+	{"LF120CV", "LFxx", []float64{12}, "TO-220", "ST LFxx Doc ID 2574 Rev 25: LF120C; V = TO-220, from memory"},
+	{"LF85CP", "LFxx", []float64{8.5}, "TO-220FP", "ST LFxx Doc ID 2574 Rev 25: LF85C; P = TO-220FP as ST L78, from memory"},
 	{"HT7333", "73xx", []float64{3.3}, "", "Holtek HT73xx: 33 = 3.3 V, from memory"},
 	{"HT7350", "73xx", []float64{5}, "", "Holtek HT73xx: 50 = 5.0 V, from memory"},
 	{"XC6206P332MR", "6206", []float64{3.3}, "SOT-23", "Torex XC6206: P, 33, accuracy 2, MR = SOT-23, from memory"},

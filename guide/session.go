@@ -178,7 +178,8 @@ func (s *Session) Document() (name string, doc []byte) { return s.name, s.doc }
 // Asked returns how many answers the session has accepted (less undone ones).
 func (s *Session) Asked() int { return len(s.history) }
 
-// Next returns the next step.
+// Next returns the next step. Once it has returned a Done, the session is
+// over and every later call returns the same Done.
 func (s *Session) Next() Step {
 	st := Step{Ranking: s.rank, Asked: len(s.history)}
 	switch {
@@ -210,10 +211,10 @@ func (s *Session) Next() Step {
 }
 
 // worth returns the index of the first question expected to gain at least
-// min bits, or -1.
-func worth(qs []Question, min float64) int {
+// least bits, or -1.
+func worth(qs []Question, least float64) int {
 	for i, q := range qs {
-		if q.GainBits >= min {
+		if q.GainBits >= least {
 			return i
 		}
 	}

@@ -38,7 +38,7 @@ filter capacitor and load to the periodic steady state, at nominal mains and at
 every corner (mains low/high, load min/max, capacitor nominal/low).
 
 --vrms is the secondary voltage measured at the load given (per half-winding for
-a centre tap). The transformer's regulation turns it into an open-circuit EMF and
+a center tap). The transformer's regulation turns it into an open-circuit EMF and
 a winding resistance; or give the winding resistance itself with --rs, and
 --vrms is then the open-circuit voltage.
 
