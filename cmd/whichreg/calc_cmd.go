@@ -12,6 +12,9 @@ func newCalcCmd(app *App) *cobra.Command {
 		Short: "Bench calculations: rectifier, booster, heat sink, divider, load",
 		Long: `The electrical models behind the replacement checks, on their own. Values take
 SI prefixes and IEC 60062 RKM code: 4k7, 0R22, 2u2, 2200u, 330m, 1.6A.`,
+		Example: `  whichreg calc rectifier --vrms 12.6 --cap 2200u --load 0.8
+  whichreg calc heatsink --vin 16 --vout 5 --load 0.8 --theta-sa 8
+  whichreg calc divider --target 12 --vref 1.25`,
 	}
 	cmd.AddCommand(newCalcRectifierCmd(app, nil), newCalcBoostCmd(app, nil), newCalcHeatsinkCmd(app, nil),
 		newCalcDividerCmd(app, nil), newCalcTestloadCmd(app, nil))

@@ -2,6 +2,7 @@ package main
 
 import (
 	"fmt"
+	"path/filepath"
 
 	"github.com/spf13/cobra"
 
@@ -64,9 +65,10 @@ func catalogPathsRun(o *catalogPathsOptions) error {
 	case derr != nil:
 		fmt.Fprintf(out, "user catalogs: no configuration directory (%v)\n", derr)
 	case o.app.NoUserCatalog:
+		// A path is never broken across lines: it may be copied.
 		fmt.Fprintf(out, "user catalogs: %s (left out: --no-user-catalog)\n", dir)
 	default:
-		fmt.Fprintf(out, "user catalogs: %s/*.toml\n", dir)
+		fmt.Fprintf(out, "user catalogs: %s\n", filepath.Join(dir, "*.toml"))
 	}
 	if len(files) == 0 {
 		fmt.Fprintln(out, "files read: none (the built-in catalog only)")

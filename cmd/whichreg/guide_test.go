@@ -124,7 +124,10 @@ func TestGuideDemoSessions(t *testing.T) {
 				}
 			}
 			done := objs[len(objs)-1].Done
-			t.Logf("%d questions (%s), ended: %s", asked, strings.Join(log, ", "), done.Reason)
+			if done.Leader != nil {
+				t.Logf("%d questions (%s), ended: %s; leader %s %s at %.3f", asked, strings.Join(log, ", "), done.Reason,
+					done.Leader.Family, done.Leader.Package, done.Leader.Probability)
+			}
 			if asked > 8 {
 				t.Errorf("%d questions, want at most 8", asked)
 			}

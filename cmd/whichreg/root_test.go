@@ -3,6 +3,8 @@ package main
 import (
 	"strings"
 	"testing"
+
+	"github.com/spf13/cobra"
 )
 
 // TestPanicIsInternalError: a bug reaches the user as one line with exit
@@ -57,4 +59,23 @@ func TestWidth(t *testing.T) {
 	if got := app.Width(); got != 100 {
 		t.Errorf("--width 100: width = %d", got)
 	}
+}
+
+// TestEveryCommandTeaches: every command of ours has a short help line and
+// examples (cobra's own completion and help commands aside).
+func TestEveryCommandTeaches(t *testing.T) {
+	app, _, _ := testApp()
+	var walk func(c *cobra.Command)
+	walk = func(c *cobra.Command) {
+		if c.Name() == "completion" || c.Name() == "help" {
+			return
+		}
+		if c.Short == "" || c.Example == "" {
+			t.Errorf("%q lacks a Short or an Example", c.CommandPath())
+		}
+		for _, sub := range c.Commands() {
+			walk(sub)
+		}
+	}
+	walk(newRootCmd(app))
 }

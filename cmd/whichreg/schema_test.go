@@ -50,7 +50,7 @@ var jsonCases = []struct {
 		"ambient_c free_air_junction_c junction_c power_w required_theta_sa_c_per_w schema theta_cs_c_per_w theta_ja_c_per_w theta_jc_c_per_w theta_sa_c_per_w tj_limit_c"},
 	{"calc-heatsink-needed", []string{"calc", "heatsink", "--power", "6", "--format", "json"}, "calc-heatsink", ""},
 	{"calc-divider", []string{"calc", "divider", "--target", "12", "--format", "json"}, "calc-divider",
-		"divider_a error_v r1_ohm r2_ohm schema series spread_high_v spread_low_v vout_v"},
+		"divider_a error_v min_load_a r1_ohm r1_rating_w r1_w r2_ohm r2_rating_w r2_w schema series spread_high_v spread_low_v trimmer vout_v"},
 	{"calc-divider-pair", []string{"calc", "divider", "--r1", "240", "--r2", "2k", "--format", "json"}, "calc-divider", ""},
 	{"calc-testload", []string{"calc", "testload", "--volts", "5", "--amps", "1", "--format", "json"}, "calc-testload",
 		"amps_a arrangement current_a need_ohm need_w parts power_w schema total_ohm volts_v"},

@@ -45,7 +45,7 @@ type DividerSpec struct {
 	TargetV  float64   // wanted output (above the return rail)
 	VrefV    float64   // reference or nominal voltage
 	ITypA    float64   // typical ADJ / quiescent current
-	IMinA    float64   // least ADJ / quiescent current (0 if unknown)
+	IMinA    float64   // least ADJ / quiescent current (0 = unknown: the typical)
 	IMaxA    float64   // greatest ADJ / quiescent current
 	MinLoadA float64   // the divider current must be at least this (the part's minimum load; 0 = DefaultMinLoadA)
 	MaxLoadA float64   // and at most this (0 = DividerSpan × MinLoadA)
@@ -148,10 +148,34 @@ func ChooseDivider(s DividerSpec) (DividerChoice, error) {
 	return best, nil
 }
 
+// leastA is the least common-lead current of the spread: IMinA when given,
+// else the typical (a ground current never falls to zero; makers give a
+// typical and a maximum).
+func (s DividerSpec) leastA() float64 {
+	if s.IMinA > 0 {
+		return s.IMinA
+	}
+	return s.ITypA
+}
+
+// Evaluate returns the figures of a given pair R1 over R2 under the spec
+// (output, spread over the common-lead current, divider current, resistor
+// powers and ratings; ErrorV against TargetV when one is given).
+func (s DividerSpec) Evaluate(r1, r2 float64) (DividerChoice, error) {
+	if _, err := DividerVout(s.VrefV, s.ITypA, r1, r2, s.VbottomV); err != nil {
+		return DividerChoice{}, err
+	}
+	c := s.pair(r1, r2)
+	if s.TargetV == 0 {
+		c.ErrorV = 0
+	}
+	return c, nil
+}
+
 // pair evaluates R1 over R2 against the spec.
 func (s DividerSpec) pair(r1, r2 float64) DividerChoice {
 	v, _ := DividerVout(s.VrefV, s.ITypA, r1, r2, s.VbottomV)
-	vl, _ := DividerVout(s.VrefV, s.IMinA, r1, r2, s.VbottomV)
+	vl, _ := DividerVout(s.VrefV, s.leastA(), r1, r2, s.VbottomV)
 	vh, _ := DividerVout(s.VrefV, s.IMaxA, r1, r2, s.VbottomV)
 	i1 := s.VrefV / r1
 	i2 := i1 + math.Max(s.IMaxA, s.ITypA)
