@@ -85,6 +85,10 @@ type BenchEvidence struct {
 	// DropoutVolts is the input − output difference (magnitude) at which
 	// the output first falls by 2 % as the supply is lowered, at normal load.
 	DropoutVolts Volts `toml:"dropout_volts" json:"dropout_volts"`
+	// HoldsAmps is the largest test load on the output at which the output
+	// stayed within 2 % for ten seconds, raising the load in steps until
+	// the output falls (or up to the largest rating identification names).
+	HoldsAmps Amps `toml:"holds_amps" json:"holds_amps"`
 }
 
 // MountEvidence is how the part is cooled.

@@ -50,6 +50,7 @@ func (e *Evidence) Check(c *catalog.Catalog) error {
 	e.checkNetwork(k)
 	if b := e.Bench; b != nil {
 		k.nonNeg("bench.dropout_volts", b.DropoutVolts.Set, b.DropoutVolts.V, 50, "V")
+		k.nonNeg("bench.holds_amps", b.HoldsAmps.Set, b.HoldsAmps.V, 1000, "A")
 	}
 	if m := e.Mount; m != nil {
 		k.nonNeg("mount.heatsink_c_per_w", m.HeatsinkCPerW.Set, m.HeatsinkCPerW.V, 1000, "°C/W")

@@ -102,7 +102,22 @@ type Options struct {
 	// always has its reasons' weights, so the score is the same either way;
 	// only the text costs time.
 	Explain int
+	// Tests says which measurements may be suggested: every kind (the zero
+	// value), or [ReadingsOnly] for a front end that asks only what a meter,
+	// a scope or a look can tell without rework.
+	Tests TestScope
 }
+
+// TestScope says which kinds of measurement [Identify] suggests.
+type TestScope int
+
+const (
+	// AllTests suggests readings and bench tests (a bench supply or a test
+	// load in place of the circuit's own), each with its caution.
+	AllTests TestScope = iota
+	// ReadingsOnly suggests no bench test.
+	ReadingsOnly
+)
 
 // Identify ranks the catalog's hypotheses for the evidence: a prior for
 // each, one likelihood term per kind of evidence (see [likelihoodTerms]),
@@ -154,7 +169,7 @@ func Identify(c *catalog.Catalog, ev *Evidence, opts Options) (*Result, error) {
 		}
 	}
 	res.Conflicts = sc.conflicts(res)
-	res.Next = nextMeasurements(c, ev, res, opts.NextCount)
+	res.Next = nextMeasurements(c, ev, res, opts)
 	return res, nil
 }
 

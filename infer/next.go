@@ -50,7 +50,8 @@ type Measurement struct {
 // nextMeasurements ranks the measurements still open by expected
 // information gain over the leaders (mutual information between the leading
 // hypothesis and the outcome).
-func nextMeasurements(c *catalog.Catalog, ev *Evidence, res *Result, n int) []Measurement {
+func nextMeasurements(c *catalog.Catalog, ev *Evidence, res *Result, opts Options) []Measurement {
+	n := opts.NextCount
 	// The leaders: the hypotheses that carry 95 % of the posterior (at most
 	// 20, at least 2), renormalised; the expected drop in entropy is taken
 	// over them.
@@ -73,7 +74,11 @@ func nextMeasurements(c *catalog.Catalog, ev *Evidence, res *Result, n int) []Me
 		floor = 1e-6
 	}
 	var out []Measurement
+	effort := map[string]float64{}
 	for _, m := range asks(c, ev, hs) {
+		if m.effort > 1 && opts.Tests == ReadingsOnly {
+			continue
+		}
 		gain, joint := mutualInfo(hs, 0, m.predict)
 		if gain < floor {
 			continue
@@ -84,8 +89,10 @@ func nextMeasurements(c *catalog.Catalog, ev *Evidence, res *Result, n int) []Me
 			a.Safety = poweredSafety
 		}
 		out = append(out, a)
+		effort[a.Key] = max(1, m.effort)
 	}
-	sort.SliceStable(out, func(i, j int) bool { return out[i].GainBits > out[j].GainBits })
+	// The most information per effort first: a reading before a bench test.
+	sort.SliceStable(out, func(i, j int) bool { return out[i].GainBits/effort[out[i].Key] > out[j].GainBits/effort[out[j].Key] })
 	if len(out) > n {
 		out = out[:n]
 	}

@@ -14,6 +14,9 @@ const poweredSafety = "Powered measurement: mains may be present inside the equi
 	"Clip the meter's black lead to board ground before switching on, probe with one hand, and keep clear of the mains wiring; " +
 	"follow local codes and qualified practice."
 
+// benchEffort is the effort of a bench test against a meter reading.
+const benchEffort = 4
+
 // noLead is the outcome of a lead measurement on a part with fewer leads.
 const noLead = "no such lead"
 
@@ -27,6 +30,12 @@ type measurement struct {
 	Measurement
 	predict  func(h Hypothesis) outcomeDist
 	describe func(key string) string // an outcome key in words
+	// effort is the relative work of a measurement that takes rework (a
+	// bench supply or a test load in place of the circuit's own); the
+	// suggestions are ordered by expected gain per effort, so such a test
+	// comes after readings of similar gain (judgement: common practice, no
+	// source). 0 = a reading.
+	effort float64
 }
 
 // askScope is what the leaders say about the part's outline: how many
@@ -108,6 +117,9 @@ func asks(c *catalog.Catalog, ev *Evidence, hs []Candidate) []measurement {
 	}
 	if ev.Bench == nil || !ev.Bench.DropoutVolts.Set {
 		ms = append(ms, dropoutAsk(ev))
+	}
+	if ev.Bench == nil || !ev.Bench.HoldsAmps.Set {
+		ms = append(ms, holdsAsk(hs))
 	}
 	if ev.Package == "" && (ev.Outline == nil || ev.Outline.Leads == nil) {
 		ms = append(ms, packageAsk(hs))
@@ -283,6 +295,40 @@ func dropoutAsk(ev *Evidence) measurement {
 			return outcomeDist{dropoutBucket(d): 1}
 		},
 		describe: func(key string) string { return "drops out at " + key },
+		effort:   benchEffort,
+	}
+}
+
+// holdsAsk offers the load test that separates families of one pinout by
+// their rating: raise a test load up to the largest leader's rating and note
+// the largest the output holds. Each part holds about its rating (its
+// current limit lies above it, but the test stops at the largest rating).
+func holdsAsk(hs []Candidate) measurement {
+	top := 0.0
+	for _, c := range hs {
+		if c.Probability > 0.01 && isRegulator(c.Hypothesis) {
+			top = math.Max(top, c.Family.Current(c.Package))
+		}
+	}
+	return measurement{
+		Measurement: Measurement{
+			Key: "bench.holds_amps", Kind: AskNumber, Unit: "A", Powered: true,
+			Measure: fmt.Sprintf("the largest load the output holds (test load up to %.3g A, powered)", top),
+			Prompt: fmt.Sprintf("Power on. Connect a test load (power resistors or an electronic load) from the output to ground and raise it in steps "+
+				"up to %.3g A, holding each step for ten seconds while watching the output: write the largest load at which the output stayed within 2 %%. "+
+				"Watch the input too: if it sags to within the headroom of the output, the supply ended the test, not the part. "+
+				"A part that gives up below %.3g A has the smaller rating.", top, top),
+			Safety: "Load test: the part, its heat sink and the test load get hot enough to burn; mains is present inside the equipment. " +
+				"Keep the test short, stop if the output falls or the part smells hot, and follow local codes and qualified practice.",
+		},
+		predict: func(h Hypothesis) outcomeDist {
+			if !isRegulator(h) {
+				return outcomeDist{"unknown": 1}
+			}
+			return outcomeDist{fmt.Sprintf("about %.3g A", math.Min(top, h.Family.Current(h.Package))): 1}
+		},
+		describe: func(key string) string { return "holds " + key },
+		effort:   benchEffort,
 	}
 }
 

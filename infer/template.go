@@ -81,6 +81,7 @@ equipment = "what it is, which board"
 
 # [bench]                           # a powered test: a current-limited bench supply in place of the input
 # dropout_volts = 1.8               # input − output when the output first falls 2 %, lowering the supply at normal load
+# holds_amps = 1.0                  # raising a test load in steps: the largest at which the output stays within 2 % for 10 s
 
 # [mount]
 # heatsink_c_per_w = 5.0            # 0 = free air

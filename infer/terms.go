@@ -19,7 +19,7 @@ func likelihoodTerms() []term {
 		termPackage, termOutline, termWiring, termCase,
 		termRegulation, termOutputOnly, termPolarity, termHeadroom, termBenchDropout,
 		termControlDrop, termConduction, termShunt,
-		termCurrent, termInputMax, termDivider, termCommonParts, termTrimmer,
+		termCurrent, termBenchLoad, termInputMax, termDivider, termCommonParts, termTrimmer,
 		termMarking,
 	}
 }

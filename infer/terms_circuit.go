@@ -165,3 +165,32 @@ func termTrimmer(sc *scene, h Hypothesis, _ voltsView, r *reasons) {
 		r.add("network.trimmer", 0.3, 0.5, "a trimmer in the network: a fixed part would need a lifted ground")
 	}
 }
+
+// termBenchLoad weighs the largest test load the part held against its
+// rating: a part holds its rating, and often more until its current limit
+// (about 1.4–2.2 times the rating: LM7805 2.2 A peak for 1 A, 78M05 0.7 A
+// for 0.5 A, typical peak-output figures of the datasheets, from memory);
+// two and a half times its rating it cannot.
+func termBenchLoad(sc *scene, h Hypothesis, _ voltsView, r *reasons) {
+	b := sc.ev.Bench
+	if b == nil || !b.HoldsAmps.Set || b.HoldsAmps.V <= 0 || !isRegulator(h) {
+		return
+	}
+	rating := h.Family.Current(h.Package)
+	if rating <= 0 {
+		return
+	}
+	q := b.HoldsAmps.V / rating
+	switch {
+	case q >= 2.5:
+		r.veto("bench.holds_amps", "held %.3g A on the test load, %.1f times the %.3g A rating: beyond any current limit", b.HoldsAmps.V, q, rating)
+	case q > 1.6:
+		r.add("bench.holds_amps", 0.03, 0.3, "held %.3g A on the test load, %.1f times the %.3g A rating: at the edge of its current limit", b.HoldsAmps.V, q, rating)
+	case q > 1.05:
+		r.add("bench.holds_amps", 0.25, 0.3, "held %.3g A on the test load, beyond the %.3g A rating (inside its current limit)", b.HoldsAmps.V, rating)
+	case q >= 0.8:
+		r.add("bench.holds_amps", 0.6, 0.3, "held %.3g A on the test load: about the %.3g A rating", b.HoldsAmps.V, rating)
+	default:
+		r.add("bench.holds_amps", 0.08, 0.3, "gave up above %.3g A on the test load, below the %.3g A rating (unlikely for this part unless its input sagged)", b.HoldsAmps.V, rating)
+	}
+}
