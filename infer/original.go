@@ -3,6 +3,7 @@ package infer
 import (
 	"errors"
 	"fmt"
+	"math"
 	"strconv"
 	"strings"
 
@@ -69,7 +70,7 @@ func ParseVariant(c *catalog.Catalog, spec string) (Hypothesis, error) {
 	switch {
 	case len(parts) > 2:
 		v, err := strconv.ParseFloat(strings.TrimSuffix(strings.TrimSpace(parts[2]), "V"), 64)
-		if err != nil || v == 0 {
+		if err != nil || v == 0 || math.IsNaN(v) || math.IsInf(v, 0) || math.Abs(v) > 1000 {
 			return h, unknownVariant("%q is not an output voltage", parts[2])
 		}
 		if v < 0 {
