@@ -88,15 +88,6 @@ type outlineDoc struct {
 	Origin       string   `json:"origin"`
 }
 
-// positive returns a pointer to x scaled, or nil when x is zero (not given).
-func positive(x, scale float64) *float64 {
-	if x == 0 {
-		return nil
-	}
-	v := round(x*scale, 12)
-	return &v
-}
-
 func familyDocOf(f *catalog.Family) familyDoc {
 	sign := 1.0
 	if f.Negative() {

@@ -1,9 +1,7 @@
 package main
 
 import (
-	"encoding/json"
 	"fmt"
-	"io"
 	"strconv"
 	"strings"
 
@@ -74,12 +72,6 @@ func (f *quantityFlag) Set(s string) error {
 func addQuantity(cmd *cobra.Command, dst *float64, name, unit string, def float64, usage string) {
 	*dst = def
 	cmd.Flags().Var(&quantityFlag{value: dst, unit: unit}, name, usage)
-}
-
-func writeJSON(w io.Writer, v any) error {
-	enc := json.NewEncoder(w)
-	enc.SetIndent("", "  ")
-	return enc.Encode(v)
 }
 
 // capFlag is --cap: a capacitance in farads that takes a unit or prefix. A

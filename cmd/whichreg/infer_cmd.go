@@ -158,31 +158,6 @@ type measurementDoc struct {
 	Outcomes []string `json:"outcomes"`
 }
 
-// finite returns x rounded to digits decimals, or nil when x is not finite.
-func finite(x float64, digits int) *float64 {
-	if math.IsNaN(x) || math.IsInf(x, 0) {
-		return nil
-	}
-	r := round(x, digits)
-	return &r
-}
-
-// orNull returns nil for the empty string.
-func orNull(s string) *string {
-	if s == "" {
-		return nil
-	}
-	return &s
-}
-
-// nonNil returns s, or an empty list for nil (JSON [] rather than null).
-func nonNil[T any](s []T) []T {
-	if s == nil {
-		return []T{}
-	}
-	return s
-}
-
 func inferDocOf(res *infer.Result, top int) inferDoc {
 	d := inferDoc{Schema: report.Schema("infer"), PriorOnly: res.PriorOnly,
 		NotInCatalog: round(res.NotInCatalog, 6), NotInCatalogScore: round(res.NotInCatalogScore, 4),
@@ -211,16 +186,4 @@ func inferDocOf(res *infer.Result, top int) inferDoc {
 			Outcomes: nonNil(m.Outcomes)})
 	}
 	return d
-}
-
-func signedVout(h infer.Hypothesis) float64 {
-	if h.Family.Negative() {
-		return -h.VoutV
-	}
-	return h.VoutV
-}
-
-func round(x float64, digits int) float64 {
-	p := math.Pow(10, float64(digits))
-	return math.Round(x*p) / p
 }

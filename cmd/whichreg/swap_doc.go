@@ -3,7 +3,6 @@ package main
 import (
 	"encoding/json"
 	"io"
-	"math"
 
 	"github.com/whichreg/whichreg/infer"
 	"github.com/whichreg/whichreg/infer/replace"
@@ -90,14 +89,6 @@ func signedV(h infer.Hypothesis) *float64 {
 		return nil
 	}
 	v := signedVout(h)
-	return &v
-}
-
-func sigPtr(p *float64) *float64 {
-	if p == nil || math.IsNaN(*p) || math.IsInf(*p, 0) {
-		return nil
-	}
-	v := report.Sig(*p)
 	return &v
 }
 
