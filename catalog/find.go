@@ -45,8 +45,8 @@ type Hit struct {
 	// Score orders hits: for wildcard hits the characters of the number the
 	// marking confirms (a look-alike character counts half), less the cost
 	// of letters the prefix and suffix tables do not explain and of a
-	// voltage or package the family does not have; for fuzzy hits the fuzzy
-	// score.
+	// voltage or package the family does not have; for prefix hits the
+	// letters of the transistor prefix; for fuzzy hits the fuzzy score.
 	Score float64
 	// Detail says in words how the marking was read.
 	Detail string

@@ -271,6 +271,10 @@ func makeCore(pattern, filled string, vout float64) core {
 			c.lead = k // the pattern spells a maker prefix (*LM309*, *LF??C*)
 			break
 		}
+		if _, ok := transistorPrefixes[n[:k]]; ok {
+			c.lead = k // or a transistor's type prefix (IRF5*)
+			break
+		}
 	}
 	last := strings.LastIndexAny(n, "0123456789")
 	if last >= 0 && last < len(n)-1 {
@@ -370,7 +374,8 @@ func DecodeMarking(c *Catalog, text string) Decoded {
 			d.Hits = append(d.Hits, h)
 		}
 	}
-	if d.Transistor != "" {
+	if d.Transistor != "" && !hasNonRegulator(d.Hits) {
+		// No look-alike's pattern fits: the prefix alone says what kind of part.
 		d.Hits = append(d.Hits, r.byDevice(d.Hits)...)
 	}
 	if len(d.DateCodes) > 0 {
@@ -419,6 +424,15 @@ func joinGroups(toks []token) []token {
 func hasDigit(q []byte) bool {
 	for _, c := range q {
 		if c >= '0' && c <= '9' {
+			return true
+		}
+	}
+	return false
+}
+
+func hasNonRegulator(hits []Hit) bool {
+	for _, h := range hits {
+		if h.Family.NonRegulator() {
 			return true
 		}
 	}

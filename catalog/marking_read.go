@@ -250,11 +250,14 @@ func (r *reader) judge(f *Family, cr *core, ti, i, j int, s float64, pre prefixR
 // the family is not sold in.
 func (r *reader) outlineCheck(f *Family, cd candidate) candidate {
 	if cd.outline != "" && len(f.Packages) > 0 && f.Package(r.c, cd.outline) == nil {
-		// T on a five-lead part is the five-lead TO-220 (LM2941CT).
-		for _, p := range f.Packages {
-			if o := r.c.Outline(p.Outline); o != nil && strings.HasPrefix(o.Name, cd.outline+"-") {
-				cd.outline = o.Name
-				break
+		// T on a five-lead part is the five-lead TO-220 (LM2941CT), S the
+		// five-lead TO-263 (D2PAK-5).
+		if o := r.c.Outline(cd.outline); o != nil {
+			for _, p := range f.Packages {
+				if po := r.c.Outline(p.Outline); po != nil && fiveLeadOf(o, po) {
+					cd.outline = po.Name
+					break
+				}
 			}
 		}
 	}
@@ -337,11 +340,24 @@ func (r *reader) byDevice(have []Hit) []Hit {
 				continue
 			}
 			seen[f.ID] = true
-			out = append(out, Hit{Family: f, How: "prefix", Pattern: t.tran, Score: 1,
+			out = append(out, Hit{Family: f, How: "prefix", Pattern: t.tran, Score: float64(len(t.tran)),
 				Detail: fmt.Sprintf("%q opens with %s, a transistor type prefix: this is no regulator", t.raw, t.tran)})
 		}
 	}
 	return out
+}
+
+// fiveLeadOf reports whether po is a many-lead form of o: one of po's names
+// is one of o's names followed by a dash (TO-220-5, D2PAK-5).
+func fiveLeadOf(o, po *Outline) bool {
+	for _, a := range append([]string{o.Name}, o.Aliases...) {
+		for _, b := range append([]string{po.Name}, po.Aliases...) {
+			if strings.HasPrefix(b, a+"-") {
+				return true
+			}
+		}
+	}
+	return false
 }
 
 func deviceIn(f *Family, ds []Device) bool {

@@ -57,6 +57,8 @@ var packageCodes = []packageCode{
 	{"U", "SOT-89", []string{"L"}, "ST L78L ACUTR = SOT-89, from memory"},
 	{"U", "D2PAK", []string{"MIC"}, "Micrel MIC2940A BU = TO-263, from memory"},
 	{"R", "DPAK", []string{"KA"}, "Fairchild KA78M05R = D-PAK, from memory"},
+	{"DBZ", "SOT-23", []string{"TL", "LM", "UA", "TLV", "LP"}, "TI package designator DBZ = SOT-23 (TL431ACDBZR), from memory"},
+	{"S", "D2PAK", []string{"IRF", "IRL"}, "International Rectifier IRF540NS = D2PAK, from memory"},
 	{"N", "", nil, "plastic DIP (N), no regulator outline"},
 }
 
@@ -73,13 +75,16 @@ type trailer struct {
 	makers []string // nil = every maker (then only after the first letter)
 }
 
-// trailers: onsemi G (Pb-free) and R4/T4/T3/T1 (reel), TI /NOPB, -TR tape
-// and reel, X (National tape), PBF (lead-free), E3 (finish); Torex XC6206
+// trailers: onsemi G (Pb-free) and R4/T4/T3/T1/R2/RK (reel: MC7805BDTRKG,
+// MC79L05ACDR2G in the makers' order tables), TA (ammo pack, BC547BTA), TI
+// /NOPB, -TR tape and reel, IR TRL/TRR and PBF (lead-free), X (National
+// tape), E3 (finish); Torex XC6206
 // P (positive fixed type) and the accuracy digit after the voltage code;
 // Microchip MCP1700 T (tape), the 0x tolerance code and the E/I
 // temperature letter. The maker-specific rows are from memory.
 var trailers = []trailer{
 	{"NOPB", nil}, {"PBF", nil}, {"TR", nil}, {"R4", nil}, {"T4", nil}, {"T3", nil}, {"T1", nil},
+	{"RK", nil}, {"R2", nil}, {"TA", nil}, {"TRL", nil}, {"TRR", nil},
 	{"E3", nil}, {"G", nil}, {"X", nil}, {"R", nil},
 	{"P", []string{"XC"}}, {"1", []string{"XC"}}, {"2", []string{"XC"}},
 	{"T", []string{"MCP"}}, {"01", []string{"MCP"}}, {"02", []string{"MCP"}}, {"E", []string{"MCP"}}, {"I", []string{"MCP"}},
@@ -89,6 +94,8 @@ var trailers = []trailer{
 const (
 	unknownLetterCost = 0.5
 	unknownDigitCost  = 1.0
+	otherMakerCost    = 0.25 // a package code read as another maker's
+	threeDigitCost    = 0.1  // a three-digit voltage code (285) is rarer than two digits and a tolerance digit
 	maxSuffixLen      = 16
 )
 
@@ -125,10 +132,12 @@ func readSuffix(s, maker string) suffixRead {
 	return r
 }
 
-// Parser states: grade letters may come only before the package code.
+// Parser states, bits: grade letters come only before the package code and
+// the voltage; a second package code costs.
 const (
-	stPre  = iota // before the package code
-	stPost        // after it
+	stPre    = 0
+	stClosed = 1 // no more grade letters
+	stPkg    = 2 // a package code has been read
 )
 
 type parse struct {
@@ -141,6 +150,7 @@ type parse struct {
 	date    string
 	unknown string
 	known   int // characters explained, to break ties
+	tokens  int // codes read: of two equal readings the one with fewer, longer codes wins
 }
 
 type suffixParser struct {
@@ -169,7 +179,7 @@ func better(a, b parse) bool {
 	if a.known != b.known {
 		return a.known > b.known
 	}
-	return a.outline != "" && b.outline == ""
+	return a.tokens < b.tokens
 }
 
 func (p *suffixParser) parse1(i, st int) parse {
@@ -196,27 +206,30 @@ func (p *suffixParser) parse1(i, st int) parse {
 			return
 		}
 		r.known += n
+		r.tokens++
 		if better(r, best) {
 			best = r
 		}
 	}
-	if st == stPre && strings.IndexByte(gradeLetters, ch) >= 0 {
-		try(1, stPre, func(*parse) bool { return true })
+	if st&stClosed == 0 && strings.IndexByte(gradeLetters, ch) >= 0 {
+		try(1, st, func(*parse) bool { return true })
 	}
 	for _, pc := range packageCodes {
 		if !strings.HasPrefix(s[i:], pc.code) {
 			continue
 		}
-		outline := pc.outline
+		outline, cost := pc.outline, 0.0
 		if pc.makers != nil && !hasString(pc.makers, p.maker) {
-			outline = "" // another maker's code: known, but says no outline here
+			// Another maker's code: likely a code, but it says no outline here.
+			outline, cost = "", otherMakerCost
 		}
 		code := pc.code
-		try(len(code), stPost, func(r *parse) bool {
-			if r.code != "" {
-				r.cost++ // two package codes
-			}
+		if st&stPkg != 0 {
+			cost++ // two package codes
+		}
+		try(len(code), st|stClosed|stPkg, func(r *parse) bool {
 			r.code, r.outline = code, outline
+			r.cost += cost
 			return true
 		})
 	}
@@ -224,30 +237,33 @@ func (p *suffixParser) parse1(i, st int) parse {
 		if !strings.HasPrefix(s[i:], t.code) {
 			continue
 		}
-		if t.makers == nil && (st == stPost || i > 0) {
-			try(len(t.code), stPost, func(*parse) bool { return true })
+		if t.makers == nil {
+			try(len(t.code), st|stClosed, func(*parse) bool { return true })
 		}
 		if t.makers != nil && hasString(t.makers, p.maker) {
 			try(len(t.code), st, func(*parse) bool { return true })
 		}
 	}
 	if strings.HasPrefix(s[i:], "ADJ") {
-		try(3, stPost, func(r *parse) bool { r.adj = true; return len(r.volts) == 0 })
+		try(3, st|stClosed, func(r *parse) bool { r.adj = true; return len(r.volts) == 0 })
 	}
 	if i == 0 || !isDigit(s[i-1]) {
 		for _, vc := range voltCodes(s[i:]) {
 			vc := vc
-			try(vc.n, stPost, func(r *parse) bool {
+			try(vc.n, st|stClosed, func(r *parse) bool {
 				if len(r.volts) > 0 || r.adj {
 					return false
 				}
 				r.volts, r.vtext = vc.volts, vc.text
+				if len(vc.text) == 3 {
+					r.cost += threeDigitCost
+				}
 				return true
 			})
 		}
 	}
 	if n := dateRun(s[i:]); n > 0 && i > 0 {
-		try(n, stPost, func(r *parse) bool { r.date = s[i : i+4]; return true })
+		try(n, st|stClosed, func(r *parse) bool { r.date = s[i : i+4]; return true })
 	}
 	return best
 }

@@ -136,4 +136,8 @@ var transistorPrefixes = map[string][]Device{
 	"FQPF": {DeviceNMOS},
 	"IXTP": {DeviceNMOS},
 	"PHP":  {DeviceNMOS},
+	"MMBT": {DeviceNPN, DevicePNP},
+	"PMBT": {DeviceNPN, DevicePNP},
+	"BCW":  {DeviceNPN, DevicePNP},
+	"BCV":  {DeviceNPN, DevicePNP, DeviceNPNDarlington},
 }

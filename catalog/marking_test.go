@@ -373,3 +373,43 @@ func TestMarkingGroups(t *testing.T) {
 		}
 	}
 }
+
+// TestMarkingOrderCodes: every order code the built-in catalog lists for a
+// package (taken by the catalog from the makers' ordering tables) decodes
+// to its family, and never to another outline than the package's. Two
+// families with the same marking patterns (1085 and 1085-fixed) cannot be
+// told apart by the number alone; the voltage suffix decides.
+func TestMarkingOrderCodes(t *testing.T) {
+	c := builtinCatalog(t)
+	n := 0
+	for _, f := range c.Sorted() {
+		for _, p := range f.Packages {
+			for _, oc := range p.OrderCodes {
+				n++
+				d := catalog.DecodeMarking(c, oc)
+				h, ok := d.Hit(f.ID)
+				if !ok {
+					t.Errorf("%s (%s %s) does not decode to %s; hits %v", oc, f.ID, p.Outline, f.ID, ids(d.Hits))
+					continue
+				}
+				if top := d.Hits[0]; top.Family != h.Family && top.Score > h.Score && !slices.Equal(top.Family.Markings, f.Markings) {
+					t.Errorf("%s (%s %s) decodes first to %s: %s", oc, f.ID, p.Outline, top.Family.ID, top.Detail)
+				}
+				if h.Outline != "" && c.Outline(h.Outline) != c.Outline(p.Outline) {
+					t.Errorf("%s (%s %s) decodes to outline %s: %s (extend the package codes in catalog/marking_suffix.go)", oc, f.ID, p.Outline, h.Outline, h.Detail)
+				}
+			}
+		}
+	}
+	if n == 0 {
+		t.Skip("no order codes in the built-in catalog")
+	}
+}
+
+func ids(hits []catalog.Hit) []string {
+	var out []string
+	for _, h := range hits {
+		out = append(out, h.Family.ID)
+	}
+	return out
+}

@@ -68,10 +68,10 @@ func prepareCandidate(in *Input, h infer.Hypothesis) cand {
 	c.thetaCS, _ = circuit.CaseToSink(ins, large)
 	// Current and dissipation, with the bypass resistor's share.
 	vout := cd.VoutV
-	c.iregA = cd.LoadMaxA
+	c.iregA = in.RegLoadA
 	if cd.BypassOhm > 0 {
 		b := circuit.Bypass{ROhm: cd.BypassOhm, VinMinV: math.Min(cd.TroughV, cd.ColdInV), VinMaxV: math.Max(cd.PeakV, cd.HotInV), VoutV: vout,
-			LoadMinA: cd.LoadMinA, LoadMaxA: cd.LoadMaxA, RegMinA: f.MinLoadMA * 1e-3}
+			LoadMinA: math.Min(cd.LoadMinA, in.RegLoadA), LoadMaxA: in.RegLoadA, RegMinA: f.MinLoadMA * 1e-3}
 		if r, err := b.Solve(); err == nil {
 			c.bypass = &r
 			c.iregA = math.Max(0, r.RegulatorMaxA)
@@ -88,14 +88,14 @@ func prepareCandidate(in *Input, h infer.Hypothesis) cand {
 func dissipation(in *Input, f *catalog.Family, vout float64) (w, atV float64) {
 	cd := &in.Cond
 	if f.Switching() {
-		return vout * cd.LoadMaxA * (1/f.Efficiency - 1), cd.HotInV
+		return vout * in.RegLoadA * (1/f.Efficiency - 1), cd.HotInV
 	}
 	lo, hi := math.Min(cd.ColdInV, cd.HotInV), math.Max(cd.ColdInV, cd.HotInV)
 	if cd.BypassOhm <= 0 {
-		return circuit.RegulatorDissipation(hi, vout, cd.LoadMaxA, f.GroundCurrentA(cd.LoadMaxA)), hi
+		return circuit.RegulatorDissipation(hi, vout, in.RegLoadA, f.GroundCurrentA(in.RegLoadA)), hi
 	}
-	b := circuit.Bypass{ROhm: cd.BypassOhm, VinMinV: lo, VinMaxV: hi, VoutV: vout, LoadMaxA: cd.LoadMaxA}
-	return b.RegulatorPowerMax(f.GroundCurrentA(cd.LoadMaxA))
+	b := circuit.Bypass{ROhm: cd.BypassOhm, VinMinV: lo, VinMaxV: hi, VoutV: vout, LoadMaxA: in.RegLoadA}
+	return b.RegulatorPowerMax(f.GroundCurrentA(in.RegLoadA))
 }
 
 // sameHoles reports whether a candidate in outline o goes into the holes of

@@ -120,6 +120,9 @@ func checkCurrent(in *Input, c *cand) (Check, bool) {
 	if c.bypass != nil && c.bypass.ResistorMinA > 0 {
 		ch.Text = fmt.Sprintf("%.3g A (load %.3g A less %.3g A through the bypass resistor at the lowest input) against %.3g A rated", c.iregA, cd.LoadMaxA, c.bypass.ResistorMinA, rating)
 	}
+	if in.Booster && in.RegLoadA < cd.LoadMaxA {
+		ch.Text += fmt.Sprintf(" (the external transistor carries the rest of the %.3g A load)", cd.LoadMaxA)
+	}
 	if cd.LoadAssumed {
 		ch.Text += " (the load is assumed: see the assumptions)"
 	}

@@ -250,6 +250,10 @@ func checkModule(in *Input, c *cand) (Check, bool) {
 		probs = append(probs, "it cannot work on a lifted ground")
 		st = Fail
 	}
+	if in.Booster {
+		probs = append(probs, "it cannot drive the external pass transistor: its input current is not the load's, so the sense resistor never turns the transistor on as designed")
+		st = Fail
+	}
 	if in.Cap.UFSet && f.Cout.MaxUF > 0 && in.Cap.UF > f.Cout.MaxUF {
 		probs = append(probs, fmt.Sprintf("the board's %g µF at the output is more than the %g µF it starts into", in.Cap.UF, f.Cout.MaxUF))
 		st = Fail

@@ -90,7 +90,19 @@ type Input struct {
 	// Lifted is true when a fixed original sits on a common-lead network.
 	Lifted bool
 	Cap    Cap
+	// RegLoadA is what the regulator itself carries at full load: the load,
+	// or with an external pass transistor ([booster]) at most the current
+	// whose drop across the sense resistor turns the transistor on.
+	RegLoadA float64
+	// Booster is true when an external pass transistor carries the rest.
+	Booster bool
 }
+
+// boosterVBEV is the base-emitter voltage at which a booster transistor
+// takes over, at its highest (a power transistor near its rated current;
+// TIP32C/MJ2955 VBE(on) up to about 0.8–1 V, common practice): the
+// regulator carries up to VBE/R_sense.
+const boosterVBEV = 0.8
 
 // Prepare builds the checks' input from the evidence and the original. It
 // fails when the output or the input voltage cannot be known.
@@ -127,6 +139,17 @@ func Prepare(ev *infer.Evidence, orig infer.Original) (*Input, []string, error) 
 	cd.Corners, cd.Rectifier = o.Corners, o.Rectifier
 	if ev.Bypass != nil {
 		cd.BypassOhm = ev.Bypass.Ohms.V
+	}
+	in.RegLoadA = cd.LoadMaxA
+	if b := ev.Booster; b != nil {
+		in.Booster = true
+		if b.RSenseOhms.V > 0 {
+			in.RegLoadA = math.Min(cd.LoadMaxA, boosterVBEV/b.RSenseOhms.V)
+			as = append(as, fmt.Sprintf("external pass transistor: the regulator carries at most %.2g V / %s = %.3g A of the load (the transistor's turn-on voltage taken as %.2g V)",
+				boosterVBEV, ohms(b.RSenseOhms.V), in.RegLoadA, boosterVBEV))
+		} else {
+			as = append(as, "external pass transistor without its sense resistor: the regulator is taken to carry the whole load (give [booster] r_sense_ohms)")
+		}
 	}
 	as = append(as, in.prepareMount()...)
 	if nw := ev.Network; nw != nil {
