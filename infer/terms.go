@@ -16,7 +16,7 @@ type term func(sc *scene, h Hypothesis, v voltsView, r *reasons)
 // likelihoodTerms is the list of terms, in the order their reasons are shown.
 func likelihoodTerms() []term {
 	return []term{
-		termPackage, termOutline, termWiring, termCase,
+		termPackage, termOutline, termWiring, termCase, termMounting,
 		termRegulation, termOutputOnly, termPolarity, termHeadroom, termBenchDropout,
 		termControlDrop, termConduction, termShunt,
 		termCurrent, termBenchLoad, termInputMax, termDivider, termCommonParts, termTrimmer,

@@ -231,3 +231,30 @@ func termCase(sc *scene, h Hypothesis, _ voltsView, r *reasons) {
 		r.add("case.tied_to_pin", 0.02, flat, "case tied to lead %d, but this variant's tab is %s (lead %d)", k, pk.Tab, want)
 	}
 }
+
+// termMounting weighs a bare mounting on a grounded heat sink: the tab or
+// can is then at ground, so a variant whose tab carries a lead that reads
+// well away from 0 V would short that lead (a lifted ground, an output, an
+// input) and cannot be mounted so. Notes often forget an insulator, so it
+// is strong evidence, not a veto (judgement: common practice, no source).
+func termMounting(sc *scene, h Hypothesis, v voltsView, r *reasons) {
+	m, o, pk := sc.ev.Mount, h.Outline, h.Package
+	if m == nil || m.ChassisHeatsink == nil || !*m.ChassisHeatsink || o == nil || o.Isolated {
+		return
+	}
+	if m.Insulator != "none" && m.Insulator != "grease" {
+		return
+	}
+	if pk.Tab == catalog.TabNone || pk.Tab == "" || (!o.Tab && !o.MetalCan) {
+		return
+	}
+	x, ok := v.tv[pk.Tab]
+	if !ok {
+		return
+	}
+	if math.Abs(x) > 0.3 {
+		r.add("mount", 0.01, 0.5, "bare on a grounded heat sink, but this variant's tab is %s at %+.2f V: it would be shorted to ground", pk.Tab, x)
+	} else {
+		r.add("mount", 0.9, 0.5, "bare on a grounded heat sink: this variant's tab is %s, at ground", pk.Tab)
+	}
+}
