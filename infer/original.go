@@ -115,20 +115,19 @@ func ChooseOriginal(res *Result, named *Hypothesis) (Original, error) {
 	return o, nonRegulator(o)
 }
 
-// nonRegulator returns an error wrapping ErrNonRegulator, saying what the
-// part is and what to do, when o is a look-alike.
-func nonRegulator(o Original) error {
-	f := o.Family
+// NonRegulator returns an error wrapping [ErrNonRegulator], saying what the
+// part is and what to do, when h is a look-alike (a transistor, a shunt
+// reference, a switching IC), and nil for a regulator.
+func NonRegulator(h Hypothesis) error {
+	f := h.Family
 	if f == nil || !f.NonRegulator() {
 		return nil
 	}
-	what := string(f.Device)
-	if what == "" {
-		what = "non-regulator"
-	}
-	return fmt.Errorf("%w: %s %s is a %s (%s), which no regulator replaces; fit the same type of device (the maker's data for %s), or, if you know the part is a regulator, name it with --original ID[:OUTLINE[:VOUT]]",
-		ErrNonRegulator, f.ID, o.Package.Outline, what, f.Title, f.ID)
+	return fmt.Errorf("%w: %s %s is a look-alike — %s — and no regulator replaces it; fit the same kind of part with at least its voltage and current ratings, or, if you know the part is a regulator, name it with --original ID[:OUTLINE[:VOUT]]",
+		ErrNonRegulator, f.ID, h.Package.Outline, f.Title)
 }
+
+func nonRegulator(o Original) error { return NonRegulator(o.Hypothesis) }
 
 // TerminalVolts maps the measured lead (and case) voltages onto h's terminal
 // functions (IN, OUT, GND, ADJ), signed as measured; a lead wired to ground

@@ -122,7 +122,7 @@ func TestNonRegulatorRefused(t *testing.T) {
 		t.Fatal(err)
 	}
 	o, err := infer.ChooseOriginal(res, &h)
-	if !errors.Is(err, infer.ErrNonRegulator) || !strings.Contains(err.Error(), "npn") {
+	if !errors.Is(err, infer.ErrNonRegulator) || !strings.Contains(err.Error(), "NPN power transistor") {
 		t.Errorf("ChooseOriginal: %v; want ErrNonRegulator naming the device", err)
 	}
 	if _, err := replace.Swap(c, ev, infer.Original{Hypothesis: h, Named: true, Probability: 1}, replace.Options{}); !errors.Is(err, infer.ErrNonRegulator) {

@@ -18,8 +18,8 @@ func Swap(c *catalog.Catalog, ev *infer.Evidence, orig infer.Original, opts Opti
 	if orig.Family == nil || orig.Package == nil {
 		return nil, fmt.Errorf("no original part given")
 	}
-	if orig.Family.NonRegulator() {
-		return nil, fmt.Errorf("%w: %s is a %s (%s): fit the same type of device, not a regulator", infer.ErrNonRegulator, orig.Family.ID, orig.Family.Device, orig.Family.Title)
+	if err := infer.NonRegulator(orig.Hypothesis); err != nil {
+		return nil, err
 	}
 	in, as, err := Prepare(ev, orig)
 	if err != nil {
