@@ -8,7 +8,7 @@ import (
 	"github.com/whichreg/whichreg/infer/circuit"
 )
 
-func checkVout(in *Input, c *cand) (Check, bool) {
+func checkVout(in Input, c cand) (Check, bool) {
 	f, of, cd := c.Family, in.Orig.Family, &in.Cond
 	target := cd.VoutV
 	s := f.SignText()
@@ -49,7 +49,7 @@ func checkVout(in *Input, c *cand) (Check, bool) {
 			ch.Action += "; the nearest pair misses by more than the part's tolerance: make R2 part trimmer and set the output"
 		}
 	default:
-		nom, want := c.VoutV, wantedNominal(in)
+		nom, want := c.VoutV, wantedNominal(&in)
 		_, ok := nearestOutput(f, want)
 		ch.Value = num(f.Signed(c.outV))
 		switch {
@@ -76,7 +76,7 @@ func checkVout(in *Input, c *cand) (Check, bool) {
 // checkLifted judges a fixed candidate on the old lifted-ground network:
 // its ground current (typical and maximum) through the bottom resistor
 // sets the lift.
-func checkLifted(in *Input, c *cand, nom float64, ch *Check) {
+func checkLifted(in Input, c cand, nom float64, ch *Check) {
 	f, n, target := c.Family, in.Network, in.Cond.VoutV
 	s := f.SignText()
 	got := nom + n.Lift(nom, iqTypA(f))
@@ -110,7 +110,7 @@ func checkLifted(in *Input, c *cand, nom float64, ch *Check) {
 	}
 }
 
-func checkCurrent(in *Input, c *cand) (Check, bool) {
+func checkCurrent(in Input, c cand) (Check, bool) {
 	cd := &in.Cond
 	rating := c.Family.Current(c.Package)
 	m := 1 - c.iregA/rating
@@ -129,7 +129,7 @@ func checkCurrent(in *Input, c *cand) (Check, bool) {
 	return ch, true
 }
 
-func checkVinMax(in *Input, c *cand) (Check, bool) {
+func checkVinMax(in Input, c cand) (Check, bool) {
 	f, cd := c.Family, &in.Cond
 	il := f.InputLimit(c.VoutV)
 	if il.StartV <= 0 {
@@ -157,7 +157,7 @@ func checkVinMax(in *Input, c *cand) (Check, bool) {
 	return ch, true
 }
 
-func checkDropout(in *Input, c *cand) (Check, bool) {
+func checkDropout(in Input, c cand) (Check, bool) {
 	f, cd := c.Family, &in.Cond
 	s := f.SignText()
 	need := f.HeadroomNeeded()

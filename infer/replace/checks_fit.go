@@ -10,8 +10,9 @@ import (
 )
 
 // checkFn is one check: it reads the prepared input and the candidate and
-// returns its row, or false when it does not apply.
-type checkFn func(in *Input, c *cand) (Check, bool)
+// returns its row, or false when it does not apply. It gets copies of both,
+// so no check can change what another reads.
+type checkFn func(in Input, c cand) (Check, bool)
 
 // checks is the table of checks, in the order they run.
 var checks = []struct {
@@ -43,7 +44,7 @@ func status(margin, warnBelow float64) Status {
 	return Pass
 }
 
-func checkOutline(in *Input, c *cand) (Check, bool) {
+func checkOutline(in Input, c cand) (Check, bool) {
 	o, oo := c.Outline, in.Orig.Outline
 	ch := Check{Name: CheckOutline, ValueText: name(o), LimitText: name(oo)}
 	nNew, nOld := len(c.Package.Terminals(o)), len(in.Orig.Package.Terminals(oo))
@@ -71,7 +72,7 @@ func checkOutline(in *Input, c *cand) (Check, bool) {
 	return ch, true
 }
 
-func checkPolarity(in *Input, c *cand) (Check, bool) {
+func checkPolarity(in Input, c cand) (Check, bool) {
 	f, of := c.Family, in.Orig.Family
 	ch := Check{Name: CheckPolarity, ValueText: string(f.Polarity), LimitText: string(of.Polarity)}
 	if f.Polarity != of.Polarity {
@@ -90,7 +91,7 @@ func common(fn string) string {
 	return fn
 }
 
-func checkPinout(in *Input, c *cand) (Check, bool) {
+func checkPinout(in Input, c cand) (Check, bool) {
 	oldT, newT := in.Orig.Package.Terminals(in.Orig.Outline), c.Package.Terminals(c.Outline)
 	ch := Check{Name: CheckPinout, ValueText: strings.Join(newT, "-"), LimitText: strings.Join(oldT, "-")}
 	if !c.sameHoles {
@@ -149,7 +150,7 @@ func leadMapText(ls []Link) string {
 	return strings.Join(parts, ", ")
 }
 
-func checkTab(in *Input, c *cand) (Check, bool) {
+func checkTab(in Input, c cand) (Check, bool) {
 	o, cd := c.Outline, &in.Cond
 	if o == nil || !(o.Tab || o.MetalCan) {
 		return Check{}, false
@@ -158,7 +159,7 @@ func checkTab(in *Input, c *cand) (Check, bool) {
 	if o.MetalCan {
 		what = "can"
 	}
-	ch := Check{Name: CheckTab, Unit: "V", LimitText: mountingText(in)}
+	ch := Check{Name: CheckTab, Unit: "V", LimitText: mountingText(&in)}
 	switch {
 	case c.tabV == nil && o.SMD:
 		ch.ValueText, ch.Margin, ch.Status = "soldered pad", 1, Pass
@@ -176,12 +177,12 @@ func checkTab(in *Input, c *cand) (Check, bool) {
 	if !cd.Grounded && cd.OldTabV != nil {
 		sink, sinkText = *cd.OldTabV, fmt.Sprintf("%+.2f V (the old part's %s)", *cd.OldTabV, what)
 	}
-	if hasHeatsink(in) {
+	if hasHeatsink(&in) {
 		ch.Limit = num(sink)
 	}
-	live := math.Abs(v-sink) >= liveV && (cd.Grounded || !sameNode(in, c.Hypothesis))
+	live := math.Abs(v-sink) >= liveV && (cd.Grounded || !sameNode(&in, c.Hypothesis))
 	switch {
-	case !hasHeatsink(in):
+	case !hasHeatsink(&in):
 		ch.Margin, ch.Status = 0.5, Pass
 		ch.Text = fmt.Sprintf("the %s sits at %+.2f V in free air: keep it clear of other parts and fingers", what, v)
 	case !live:

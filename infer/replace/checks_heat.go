@@ -14,7 +14,7 @@ import (
 // here and the words for it: surface-mount parts by their datasheet θJA on
 // the board copper (never the old heat sink); a tab or can on the old heat
 // sink through θJC + θCS + θSA; anything else in free air by θJA.
-func thermalPath(in *Input, c *cand) (float64, string) {
+func thermalPath(in Input, c cand) (float64, string) {
 	o, p, cd := c.Outline, c.Package, &in.Cond
 	switch {
 	case c.Family.Switching():
@@ -38,7 +38,7 @@ func thermalPath(in *Input, c *cand) (float64, string) {
 	return p.ThetaJA, fmt.Sprintf("free air, θJA %g °C/W", p.ThetaJA)
 }
 
-func checkThermal(in *Input, c *cand) (Check, bool) {
+func checkThermal(in Input, c cand) (Check, bool) {
 	f, cd := c.Family, &in.Cond
 	theta, path := thermalPath(in, c)
 	tj := cd.AmbientC + c.powerW*theta
@@ -89,7 +89,7 @@ func esrEstimate(kind infer.CapType, uf float64) float64 {
 	return 0
 }
 
-func checkCout(in *Input, c *cand) (Check, bool) {
+func checkCout(in Input, c cand) (Check, bool) {
 	f, cp := c.Family, in.Cap
 	req := f.Cout
 	needs := req.MinUF > 0 || req.ESRMinOhm > 0 || req.ESRMaxOhm > 0 || !req.CeramicOK
@@ -199,7 +199,7 @@ func coutAdvice(f *catalog.Family) string {
 	return "capacitor: 0.1 µF ceramic at the input and output leads"
 }
 
-func checkMinLoad(in *Input, c *cand) (Check, bool) {
+func checkMinLoad(in Input, c cand) (Check, bool) {
 	f, cd := c.Family, &in.Cond
 	if !f.Adjustable() && cd.BypassOhm <= 0 {
 		return Check{}, false
@@ -235,7 +235,7 @@ func checkMinLoad(in *Input, c *cand) (Check, bool) {
 	return ch, true
 }
 
-func checkModule(in *Input, c *cand) (Check, bool) {
+func checkModule(in Input, c cand) (Check, bool) {
 	f, cd := c.Family, &in.Cond
 	if !f.Switching() {
 		return Check{}, false

@@ -101,7 +101,7 @@ func Evaluate(in *Input, h infer.Hypothesis) Replacement {
 	c := prepareCandidate(in, h)
 	r := Replacement{Hypothesis: c.Hypothesis}
 	for _, k := range checks {
-		if ch, ok := k.fn(in, &c); ok {
+		if ch, ok := k.fn(*in, c); ok { // copies: no check can change what another reads
 			r.Checks = append(r.Checks, ch)
 		}
 	}
@@ -112,7 +112,7 @@ func Evaluate(in *Input, h infer.Hypothesis) Replacement {
 		}
 	}
 	if r.Verdict != Unsuitable {
-		r.Install = append(r.Install, afterPowerUp(in, &c)...)
+		r.Install = append(r.Install, afterPowerUp(*in, c)...)
 	}
 	return r
 }
@@ -147,7 +147,7 @@ func judge(r *Replacement) {
 }
 
 // afterPowerUp is what to measure once the part is in.
-func afterPowerUp(in *Input, c *cand) []string {
+func afterPowerUp(in Input, c cand) []string {
 	cd := &in.Cond
 	theta, _ := thermalPath(in, c)
 	tcase := cd.AmbientC + c.powerW*(theta-c.Package.ThetaJC)
