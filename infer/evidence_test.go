@@ -85,7 +85,10 @@ func TestTemplateMeasuresNothing(t *testing.T) {
 	// Uncomment everything: every example is a valid evidence key and value
 	// (DC and rectifier examples are exclusive, so the DC lines go apart).
 	var all, dc []string
-	for _, line := range strings.Split(infer.Template, "\n") {
+	for i, line := range strings.Split(infer.Template, "\n") {
+		if n := len([]rune(line)); n > 80 {
+			t.Errorf("template line %d is %d columns wide", i+1, n)
+		}
 		if !strings.HasPrefix(line, "# ") {
 			all = append(all, line)
 			continue
