@@ -13,53 +13,65 @@ type packageCode struct {
 	outline string   // catalog outline name; "" = known code, outline not in the catalog
 	makers  []string // maker prefixes the reading holds for; nil = every maker
 	source  string
+	where   int // anywhere, atStart (nothing before it), afterGrade (a grade letter before it)
 }
+
+// Where a package code may stand in the suffix, for makers whose order
+// differs: Fairchild wrote the package letter first (µA7805KC), TI the grade
+// first (µA7805CKC).
+const (
+	anywhere   = 0
+	atStart    = 1
+	afterGrade = 2
+)
 
 // packageCodes are read longest first; where makers disagree on a code the
 // reading is tied to their prefixes and an unknown maker gets no outline.
 var packageCodes = []packageCode{
-	{"D2T", "D2PAK", nil, "ST L78 DS0422 and onsemi MC7800/D, LM337/D: D2T = D2PAK (case 936)"},
-	{"DT", "DPAK", nil, "SGS L78M00 (1994) CDT = DPAK; onsemi MC78M00/D Rev 16 DT = DPAK-3 (case 369C); National LM1117 DS100919 DT = TO-252"},
-	{"KTT", "D2PAK", []string{"LM", "UA", "TL", "TLV", "REG"}, "TI TL783 SLVS036 and LM317 SLVS044: KTT = TO-263"},
-	{"KVU", "DPAK", []string{"LM", "UA", "TL", "TLV"}, "TI µA78M00 and LM317: KVU = TO-252, from memory"},
-	{"KCS", "TO-220", []string{"LM", "UA", "TL"}, "TI TL783 SLVS036 and µA7800 SLVS056: KCS = TO-220"},
-	{"KCT", "TO-220", []string{"LM", "UA", "TL"}, "TI LM317 SLVS044: KCT = TO-220"},
-	{"KC", "TO-220", []string{"UA", "TL"}, "TI µA7800 SLVS056 and TL783 SLVS036: KC = TO-220"},
-	{"KC", "TO-3", []string{"LM"}, "National LM78XX (1995/2000): LM7805CK aluminium TO-3, package KC02A; LM340KC, from memory"},
-	{"KTE", "", []string{"UA", "TL", "LM"}, "TI PowerFLEX (KTE), not in the catalog"},
-	{"DCY", "SOT-223", []string{"LM", "UA", "TL", "TLV", "REG"}, "TI LM340 / LM317 SOT-223 drawing DCY"},
-	{"EMP", "SOT-223", []string{"LM"}, "TI LM317 SLVS044: EMP = SOT-223, from memory"},
-	{"MP", "SOT-223", nil, "National LM340 / LM2940 / LM1117: MP = SOT-223 (TI SNOSBT0, LM2940 DS)"},
-	{"ST", "SOT-223", []string{"LT", "NCP", "NCV"}, "Linear Technology LT1117 CST and onsemi NCP1117 ST = SOT-223, from memory"},
-	{"LP", "TO-92", nil, "TI LM317L SLCS144 and µA78L00: LP = TO-92"},
-	{"PK", "SOT-89", []string{"UA"}, "TI µA78L00: PK = SOT-89, from memory"},
-	{"FP", "TO-220FP", nil, "fully moulded TO-220 (FP), from memory"},
-	{"FA", "TO-220FP", []string{"NJM"}, "JRC NJM78xx FA = TO-220F, from memory"},
-	{"MR", "SOT-23", []string{"XC"}, "Torex XC6206 MR = SOT-23, from memory"},
-	{"PR", "SOT-89", []string{"XC"}, "Torex XC6206 PR = SOT-89, from memory"},
-	{"TT", "SOT-23", []string{"MCP"}, "Microchip MCP1700 TT = SOT-23, from memory"},
-	{"MB", "SOT-89", []string{"MCP"}, "Microchip MCP1700 MB = SOT-89, from memory"},
-	{"TO", "TO-92", []string{"MCP"}, "Microchip MCP1700 TO = TO-92, from memory"},
-	{"T", "TO-3", []string{"L"}, "ST L78 / L78S (1993, 1998): T and CT = TO-3, CV = TO-220"},
-	{"T", "TO-220", nil, "National LM78xx/LM340/LM317 T = TO-220; onsemi MC7800/D CT = TO-220; Fairchild LM78XX CT"},
-	{"V", "TO-220", nil, "ST L78 CV, LD1117 V, L4940 V = TO-220"},
-	{"P", "TO-220FP", []string{"L", "LM", "LD", "LF"}, "ST L7800 (1998) ISOWATT220 CP; ST LM317 P = TO-220FP"},
-	{"P", "TO-92", []string{"MC", "KIA"}, "onsemi MC78L00A/D: P = TO-92 (case 029)"},
-	{"K", "TO-3", nil, "National LM309K, LM317K, LM340K (K02A); Motorola MC7900 CK (case 1-03)"},
-	{"H", "SOT-89", []string{"MC"}, "onsemi MC78L00 ACH = SOT-89, from memory"},
-	{"H", "TO-39", nil, "National LM109H/LM309H, LM317H (H03A); Linear Technology LT1086 H"},
-	{"Z", "TO-92", nil, "National LM78L05ACZ, LM317LZ; ST L78L ACZ; onsemi LP2950/D Z = TO-92 (case 29)"},
-	{"D", "SO-8", nil, "TI LM317L SLCS144 (D = SOIC-8); onsemi MC78L00A/D D = SOIC-8 (case 751)"},
-	{"M", "D2PAK", []string{"LT"}, "Linear Technology LT1085 / LT1086 CM = DD (TO-263), from memory"},
-	{"M", "SO-8", []string{"LM", "LP"}, "National LM78L05ACM, LM317LM, LM2931M = SO-8, from memory"},
-	{"S", "SOT-223", []string{"LD"}, "ST LD1117 (2004) S = SOT-223"},
-	{"S", "D2PAK", []string{"LM", "LP"}, "National LM340 / LM2940: S = TO-263 (TI SNOSBT0, LM2940 DS)"},
-	{"U", "SOT-89", []string{"L"}, "ST L78L ACUTR = SOT-89, from memory"},
-	{"U", "D2PAK", []string{"MIC"}, "Micrel MIC2940A BU = TO-263, from memory"},
-	{"R", "DPAK", []string{"KA"}, "Fairchild KA78M05R = D-PAK, from memory"},
-	{"DBZ", "SOT-23", []string{"TL", "LM", "UA", "TLV", "LP"}, "TI package designator DBZ = SOT-23 (TL431ACDBZR), from memory"},
-	{"S", "D2PAK", []string{"IRF", "IRL"}, "International Rectifier IRF540NS = D2PAK, from memory"},
-	{"N", "", nil, "plastic DIP (N), no regulator outline"},
+	{"D2T", "D2PAK", nil, "ST L78 DS0422 and onsemi MC7800/D, LM337/D: D2T = D2PAK (case 936)", anywhere},
+	{"DT", "DPAK", nil, "SGS L78M00 (1994) CDT = DPAK; onsemi MC78M00/D Rev 16 DT = DPAK-3 (case 369C); National LM1117 DS100919 DT = TO-252", anywhere},
+	{"KTT", "D2PAK", []string{"LM", "UA", "TL", "TLV", "REG"}, "TI TL783 SLVS036 and LM317 SLVS044: KTT = TO-263", anywhere},
+	{"KVU", "DPAK", []string{"LM", "UA", "TL", "TLV"}, "TI µA78M00 and LM317: KVU = TO-252, from memory", anywhere},
+	{"KCS", "TO-220", []string{"LM", "UA", "TL"}, "TI TL783 SLVS036 and µA7800 SLVS056: KCS = TO-220", anywhere},
+	{"KCT", "TO-220", []string{"LM", "UA", "TL"}, "TI LM317 SLVS044: KCT = TO-220", anywhere},
+	{"KC", "TO-220", []string{"UA", "TL"}, "TI µA7800 SLVS056 and TL783 SLVS036: CKC = TO-220 (grade C first)", afterGrade},
+	{"KC", "TO-3", []string{"UA"}, "Fairchild µA7800 (1970s-80s): KC = TO-3 metal can, package letter first, from memory", atStart},
+	{"UC", "TO-220", []string{"UA"}, "Fairchild µA7800: UC = TO-220 plastic, from memory", atStart},
+	{"KC", "TO-3", []string{"LM"}, "National LM78XX (1995/2000): LM7805CK aluminium TO-3, package KC02A; LM340KC, from memory", anywhere},
+	{"KTE", "", []string{"UA", "TL", "LM"}, "TI PowerFLEX (KTE), not in the catalog", anywhere},
+	{"DCY", "SOT-223", []string{"LM", "UA", "TL", "TLV", "REG"}, "TI LM340 / LM317 SOT-223 drawing DCY", anywhere},
+	{"EMP", "SOT-223", []string{"LM"}, "TI LM317 SLVS044: EMP = SOT-223, from memory", anywhere},
+	{"MP", "SOT-223", nil, "National LM340 / LM2940 / LM1117: MP = SOT-223 (TI SNOSBT0, LM2940 DS)", anywhere},
+	{"ST", "SOT-223", []string{"LT", "NCP", "NCV"}, "Linear Technology LT1117 CST and onsemi NCP1117 ST = SOT-223, from memory", anywhere},
+	{"LP", "TO-92", nil, "TI LM317L SLCS144 and µA78L00: LP = TO-92", anywhere},
+	{"PK", "SOT-89", []string{"UA"}, "TI µA78L00: PK = SOT-89, from memory", anywhere},
+	{"FP", "TO-220FP", nil, "fully moulded TO-220 (FP), from memory", anywhere},
+	{"FA", "TO-220FP", []string{"NJM"}, "JRC NJM78xx FA = TO-220F, from memory", anywhere},
+	{"MR", "SOT-23", []string{"XC"}, "Torex XC6206 MR = SOT-23, from memory", anywhere},
+	{"PR", "SOT-89", []string{"XC"}, "Torex XC6206 PR = SOT-89, from memory", anywhere},
+	{"TT", "SOT-23", []string{"MCP"}, "Microchip MCP1700 TT = SOT-23, from memory", anywhere},
+	{"MB", "SOT-89", []string{"MCP"}, "Microchip MCP1700 MB = SOT-89, from memory", anywhere},
+	{"TO", "TO-92", []string{"MCP"}, "Microchip MCP1700 TO = TO-92, from memory", anywhere},
+	{"T", "TO-3", []string{"L"}, "ST L78 / L78S (1993, 1998): T and CT = TO-3, CV = TO-220", anywhere},
+	{"T", "TO-220", nil, "National LM78xx/LM340/LM317 T = TO-220; onsemi MC7800/D CT = TO-220; Fairchild LM78XX CT", anywhere},
+	{"V", "TO-220", nil, "ST L78 CV, LD1117 V, L4940 V = TO-220", anywhere},
+	{"P", "TO-220FP", []string{"L", "LM", "LD", "LF"}, "ST L7800 (1998) ISOWATT220 CP; ST LM317 P = TO-220FP", anywhere},
+	{"P", "TO-92", []string{"MC", "KIA"}, "onsemi MC78L00A/D: P = TO-92 (case 029)", anywhere},
+	{"K", "TO-3", nil, "National LM309K, LM317K, LM340K (K02A); Motorola MC7900 CK (case 1-03)", anywhere},
+	{"H", "SOT-89", []string{"MC"}, "onsemi MC78L00 ACH = SOT-89, from memory", anywhere},
+	{"H", "TO-39", nil, "National LM109H/LM309H, LM317H (H03A); Linear Technology LT1086 H", anywhere},
+	{"Z", "TO-92", nil, "National LM78L05ACZ, LM317LZ; ST L78L ACZ; onsemi LP2950/D Z = TO-92 (case 29)", anywhere},
+	{"D", "SO-8", nil, "TI LM317L SLCS144 (D = SOIC-8); onsemi MC78L00A/D D = SOIC-8 (case 751)", anywhere},
+	{"M", "D2PAK", []string{"LT"}, "Linear Technology LT1085 / LT1086 CM = DD (TO-263), from memory", anywhere},
+	{"M", "SO-8", []string{"LM", "LP"}, "National LM78L05ACM, LM317LM, LM2931M = SO-8, from memory", anywhere},
+	{"S", "SOT-223", []string{"LD"}, "ST LD1117 (2004) S = SOT-223", anywhere},
+	{"S", "D2PAK", []string{"LM", "LP"}, "National LM340 / LM2940: S = TO-263 (TI SNOSBT0, LM2940 DS)", anywhere},
+	{"U", "SOT-89", []string{"L"}, "ST L78L ACUTR = SOT-89, from memory", anywhere},
+	{"U", "D2PAK", []string{"MIC"}, "Micrel MIC2940A BU = TO-263, from memory", anywhere},
+	{"R", "DPAK", []string{"KA"}, "Fairchild KA78M05R = D-PAK, from memory", anywhere},
+	{"DBZ", "SOT-23", []string{"TL", "LM", "UA", "TLV", "LP"}, "TI package designator DBZ = SOT-23 (TL431ACDBZR), from memory", anywhere},
+	{"S", "D2PAK", []string{"IRF", "IRL"}, "International Rectifier IRF540NS = D2PAK, from memory", anywhere},
+	{"N", "", nil, "plastic DIP (N), no regulator outline", anywhere},
 }
 
 // gradeLetters stand before the package code: temperature range and
@@ -214,8 +226,10 @@ func (p *suffixParser) parse1(i, st int) parse {
 	if st&stClosed == 0 && strings.IndexByte(gradeLetters, ch) >= 0 {
 		try(1, st, func(*parse) bool { return true })
 	}
+	start := strings.Trim(s[:i], "-./+") == ""
 	for _, pc := range packageCodes {
-		if !strings.HasPrefix(s[i:], pc.code) {
+		if !strings.HasPrefix(s[i:], pc.code) || (pc.where == atStart && !start) ||
+			(pc.where == afterGrade && (start || strings.IndexByte(gradeLetters, s[i-1]) < 0)) {
 			continue
 		}
 		outline, cost := pc.outline, 0.0

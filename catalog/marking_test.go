@@ -79,6 +79,8 @@ var markingCases = []markingCase{
 	{"UA78L05ACLP", "78Lxx", []float64{5}, "TO-92", "TI µA78L00: LP = TO-92 (TI package code, as TI LM317L SLCS144)"},
 	{"µA7805CKC", "78xx", []float64{5}, "TO-220", "TI µA7800 SLVS056: KC = TO-220"},
 	{"UA7812CKCS", "78xx", []float64{12}, "TO-220", "TI µA7800 SLVS056: KCS = TO-220"},
+	{"µA7805KC", "78xx", []float64{5}, "TO-3", "Fairchild µA7800: package letter first, KC = TO-3 metal can, from memory"},
+	{"UA7812UC", "78xx", []float64{12}, "TO-220", "Fairchild µA7800: UC = TO-220, from memory"},
 	{"KA7805", "78xx", []float64{5}, "", "Fairchild KA78XX: no package letter on the TO-220 part"},
 	{"KA7912", "79xx", []float64{12}, "", "Fairchild KA79XX Rev 1.1.1"},
 	{"LM7912CT", "79xx", []float64{12}, "TO-220", "Fairchild LM79XX Rev 1.0.3"},
