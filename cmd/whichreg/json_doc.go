@@ -63,6 +63,7 @@ func positive(x, scale float64) *float64 {
 	return &v
 }
 
+// sigPtr rounds *p to 6 significant figures; nil for nil or not finite.
 func sigPtr(p *float64) *float64 {
 	if p == nil || math.IsNaN(*p) || math.IsInf(*p, 0) {
 		return nil

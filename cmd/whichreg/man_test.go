@@ -22,8 +22,6 @@ var manDate = time.Date(2026, 12, 1, 0, 0, 0, 0, time.UTC)
 func TestManPages(t *testing.T) {
 	app, _, _ := testApp()
 	root := newRootCmd(app)
-	root.InitDefaultCompletionCmd()
-	root.InitDefaultHelpCmd()
 	dir := t.TempDir()
 	hdr := &doc.GenManHeader{Title: "WHICHREG", Section: "1", Source: "whichreg " + version, Manual: "whichreg manual", Date: &manDate}
 	root.DisableAutoGenTag = true

@@ -207,6 +207,10 @@ written into every record.`,
 	}
 	root.SetHelpCommandGroupID(groupTools)
 	root.SetCompletionCommandGroupID(groupTools)
+	// The completion and help commands are usually added at Execute; adding
+	// them here gives them typed usage errors too ('completion bogus').
+	root.InitDefaultCompletionCmd()
+	root.InitDefaultHelpCmd()
 	typedUsageErrors(root)
 	addCompletions(root, app)
 	return root
