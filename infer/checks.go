@@ -21,6 +21,7 @@ func (sc *scene) conflicts(res *Result) []string {
 	out = append(out, sc.markingSlip(res)...)
 	out = append(out, sc.reversedLeads(res)...)
 	out = append(out, sc.mirrorSlip(res)...)
+	out = append(out, sc.unitSlips()...)
 	// Voltages that fit no regulator's pinout at all.
 	regs, reversed := 0, 0
 	for _, c := range res.Candidates {
@@ -39,8 +40,11 @@ func (sc *scene) conflicts(res *Result) []string {
 	if allReversed {
 		out = append(out, "for every regulator pinout in the catalog the output lies beyond the input: check which lead is which and the meter's polarity")
 	}
-	// Evidence every leader contradicts.
+	// Evidence every leader contradicts. When "not in the catalog" leads,
+	// the leaders are poor fits anyway and their quarrels are noise, except
+	// for a marking that fits nothing and the veto that put the leader out.
 	lead := res.Candidates[:min(5, len(res.Candidates))]
+	nicLeads := len(lead) > 0 && lead[0].Probability < res.NotInCatalog
 	if len(lead) > 0 {
 		for _, r := range lead[0].Reasons {
 			if r.Weight > -2 || r.Evidence == "prior" || r.Evidence == "year" || r.Evidence == "voltages.headroom" && allReversed {
@@ -52,6 +56,9 @@ func (sc *scene) conflicts(res *Result) []string {
 					all = false
 					break
 				}
+			}
+			if nicLeads && r.Evidence != "marking" {
+				all = false
 			}
 			switch {
 			case all:
@@ -213,8 +220,9 @@ func (sc *scene) markingSlip(res *Result) []string {
 		"look at the marking again under a loupe before trusting either", sc.ev.Marking, trimFloat(sc.codeVolts[0]), out)}
 }
 
-// reversedLeads: every reading has one sign while the wiring and outline
-// fit a regulator of the other polarity far better: the meter's leads were
+// reversedLeads: every reading has one sign while the wiring, outline and
+// marking (the evidence a meter's polarity cannot change) fit a regulator of
+// the other polarity far better: the meter's leads were
 // probably swapped.
 func (sc *scene) reversedLeads(res *Result) []string {
 	pos, neg := 0, 0
@@ -241,7 +249,8 @@ func (sc *scene) reversedLeads(res *Result) []string {
 		}
 		s, any := 0.0, false
 		for _, r := range c.Reasons {
-			if strings.HasPrefix(r.Evidence, "pins.") || strings.HasPrefix(r.Evidence, "case.") {
+			if strings.HasPrefix(r.Evidence, "pins.") || strings.HasPrefix(r.Evidence, "case.") ||
+				r.Evidence == "package" || strings.HasPrefix(r.Evidence, "outline.") || r.Evidence == "marking" {
 				s += r.Weight
 				any = true
 			}
@@ -279,4 +288,29 @@ func hasVeto(c Candidate) bool {
 		}
 	}
 	return false
+}
+
+// unitSlips names figures that read like a unit slipped: a load no part in
+// the catalog carries (milliamperes written as amperes), a reservoir
+// capacitor too small to filter anything (farads written as microfarads).
+func (sc *scene) unitSlips() []string {
+	var out []string
+	ev := sc.ev
+	if o := ev.Output; o != nil && o.Amps.Set {
+		top := 0.0
+		for _, f := range sc.c.Families {
+			for i := range f.Packages {
+				top = math.Max(top, f.Current(&f.Packages[i]))
+			}
+		}
+		if top > 0 && o.Amps.V > 2*top {
+			out = append(out, fmt.Sprintf("output.amps = %g A: no part in the catalog carries even half of that; if it is milliamperes, write \"%gm\"", o.Amps.V, o.Amps.V))
+		}
+	}
+	if in := ev.Input; in != nil && in.FilterUF.Set && in.FilterUF.V < 1 {
+		if _, ok := in.Rectifier.Topology(); ok {
+			out = append(out, fmt.Sprintf("input.filter_uf = %g µF is far too small for a reservoir capacitor; the key is in microfarads (write 2200 for 2200 µF)", in.FilterUF.V))
+		}
+	}
+	return out
 }
