@@ -19,6 +19,15 @@ func WriteJSON(w io.Writer, v any) error {
 	return enc.Encode(v)
 }
 
+// Known returns a pointer to x, or nil (JSON null: unknown) when known is
+// false or x is not finite.
+func Known(x float64, known bool) *float64 {
+	if !known || math.IsNaN(x) || math.IsInf(x, 0) {
+		return nil
+	}
+	return &x
+}
+
 // Sig rounds x to 6 significant figures, so that JSON does not carry a
 // solver's last bits; zero, NaN and infinities are returned as they are.
 func Sig(x float64) float64 {
