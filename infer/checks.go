@@ -39,8 +39,11 @@ func (sc *scene) conflicts(res *Result) []string {
 	if allReversed {
 		out = append(out, "for every regulator pinout in the catalog the output lies beyond the input: check which lead is which and the meter's polarity")
 	}
-	// Evidence every leader contradicts.
+	// Evidence every leader contradicts. When "not in the catalog" leads,
+	// the leaders are poor fits anyway and their quarrels are noise, except
+	// for a marking that fits nothing and the veto that put the leader out.
 	lead := res.Candidates[:min(5, len(res.Candidates))]
+	nicLeads := len(lead) > 0 && lead[0].Probability < res.NotInCatalog
 	if len(lead) > 0 {
 		for _, r := range lead[0].Reasons {
 			if r.Weight > -2 || r.Evidence == "prior" || r.Evidence == "year" || r.Evidence == "voltages.headroom" && allReversed {
@@ -52,6 +55,9 @@ func (sc *scene) conflicts(res *Result) []string {
 					all = false
 					break
 				}
+			}
+			if nicLeads && r.Evidence != "marking" {
+				all = false
 			}
 			switch {
 			case all:
@@ -213,8 +219,9 @@ func (sc *scene) markingSlip(res *Result) []string {
 		"look at the marking again under a loupe before trusting either", sc.ev.Marking, trimFloat(sc.codeVolts[0]), out)}
 }
 
-// reversedLeads: every reading has one sign while the wiring and outline
-// fit a regulator of the other polarity far better: the meter's leads were
+// reversedLeads: every reading has one sign while the wiring, outline and
+// marking (the evidence a meter's polarity cannot change) fit a regulator of
+// the other polarity far better: the meter's leads were
 // probably swapped.
 func (sc *scene) reversedLeads(res *Result) []string {
 	pos, neg := 0, 0
@@ -241,7 +248,8 @@ func (sc *scene) reversedLeads(res *Result) []string {
 		}
 		s, any := 0.0, false
 		for _, r := range c.Reasons {
-			if strings.HasPrefix(r.Evidence, "pins.") || strings.HasPrefix(r.Evidence, "case.") {
+			if strings.HasPrefix(r.Evidence, "pins.") || strings.HasPrefix(r.Evidence, "case.") ||
+				r.Evidence == "package" || strings.HasPrefix(r.Evidence, "outline.") || r.Evidence == "marking" {
 				s += r.Weight
 				any = true
 			}

@@ -65,8 +65,14 @@ func (sc *scene) mirrorSlip(res *Result) []string {
 	ms := *sc
 	ms.ev, ms.text = m, false
 	best, label := math.Inf(-1), ""
+	named := sc.c.Outline(sc.ev.Package)
+	if sc.packageContradicted() {
+		named = nil
+	}
 	for _, h := range hypotheses(sc.c, m) {
-		if len(h.Package.Pins) != n {
+		// The same outline (the one named, when a name stands): the slip is
+		// in the numbering, not in the package.
+		if len(h.Package.Pins) != n || (named != nil && h.Outline != named) {
 			continue
 		}
 		s := 0.0
@@ -80,7 +86,7 @@ func (sc *scene) mirrorSlip(res *Result) []string {
 			best, label = s, h.Label()
 		}
 	}
-	if best < lead.Score+mirrorMargin {
+	if best < lead.Score+mirrorMargin || best < res.NotInCatalogScore {
 		return nil
 	}
 	return []string{fmt.Sprintf("numbered from the other side (lead 1 as lead %d), the readings fit %s far better (score %+.2f against the leader's %+.2f): "+
