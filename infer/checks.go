@@ -21,6 +21,7 @@ func (sc *scene) conflicts(res *Result) []string {
 	out = append(out, sc.markingSlip(res)...)
 	out = append(out, sc.reversedLeads(res)...)
 	out = append(out, sc.mirrorSlip(res)...)
+	out = append(out, sc.unitSlips()...)
 	// Voltages that fit no regulator's pinout at all.
 	regs, reversed := 0, 0
 	for _, c := range res.Candidates {
@@ -287,4 +288,29 @@ func hasVeto(c Candidate) bool {
 		}
 	}
 	return false
+}
+
+// unitSlips names figures that read like a unit slipped: a load no part in
+// the catalog carries (milliamperes written as amperes), a reservoir
+// capacitor too small to filter anything (farads written as microfarads).
+func (sc *scene) unitSlips() []string {
+	var out []string
+	ev := sc.ev
+	if o := ev.Output; o != nil && o.Amps.Set {
+		top := 0.0
+		for _, f := range sc.c.Families {
+			for i := range f.Packages {
+				top = math.Max(top, f.Current(&f.Packages[i]))
+			}
+		}
+		if top > 0 && o.Amps.V > 2*top {
+			out = append(out, fmt.Sprintf("output.amps = %g A: no part in the catalog carries even half of that; if it is milliamperes, write \"%gm\"", o.Amps.V, o.Amps.V))
+		}
+	}
+	if in := ev.Input; in != nil && in.FilterUF.Set && in.FilterUF.V < 1 {
+		if _, ok := in.Rectifier.Topology(); ok {
+			out = append(out, fmt.Sprintf("input.filter_uf = %g µF is far too small for a reservoir capacitor; the key is in microfarads (write 2200 for 2200 µF)", in.FilterUF.V))
+		}
+	}
+	return out
 }
