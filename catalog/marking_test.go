@@ -135,6 +135,7 @@ var markingCases = []markingCase{
 	// Families added with issue 11.
 	{"MC78T05CT", "78Txx", []float64{5}, "TO-220", "onsemi MC78T00 (MC78T05CT)"},
 	{"MC78T12CT", "78Txx", []float64{12}, "TO-220", "onsemi MC78T00"},
+	{"MC78T05", "78Txx", []float64{5}, "", "onsemi MC78T00: a 3 A part is no 78Sxx (issue 11)"},
 	{"LM78H05KC", "78Hxx", []float64{5}, "TO-3", "Natl LM78H05: KC = TO-3, from memory"},
 	{"LM337LZ", "337L", nil, "TO-92", "Natl LM337L: Z = TO-92, from memory"},
 	{"LM1117T-ADJ", "1117-adj", nil, "TO-220", "Natl LM1117 DS100919: LM1117T-ADJ"},

@@ -19,12 +19,21 @@ func newCatalogFindCmd(app *App, runF func(*catalogFindOptions) error) *cobra.Co
 	cmd := &cobra.Command{
 		Use:   "find MARKING",
 		Short: "Find families by a partial marking (? = one unreadable character, * = any run)",
-		Long: `find matches what is legible on a part against the catalog's marking patterns.
-Write ? for each character you cannot read and * for a run of unknown length.
-Wildcard matches come first, most specific pattern first; fuzzy matches of the
+		Long: `find reads what is legible on a part against the catalog's marking patterns.
+Write ? for each character you cannot read and * for a run of unknown length
+(a * never stands for the first digit of a part number). Type the lines of
+the marking separated by spaces: a four-digit year-and-week group beside the
+number is left out as a date code.
+
+The maker's prefix (LM, MC, L, µA, KA ...), the grade and package letters
+(CT, CV: TO-220; K: TO-3; DT: DPAK; Z: TO-92 ...) and a voltage code
+(LM2940CT-5.0, LD1117V33) are decoded; O/0, I/1, B/8, S/5, Z/2 and G/6 are
+tried at a small cost. A transistor number (BC, 2N, TIP, IRF ...) finds only
+the look-alike families. Best readings come first; fuzzy matches of the
 legible characters follow.`,
 		Example: `  whichreg catalog find '?M3?7'
-  whichreg catalog find 7912
+  whichreg catalog find 'LM317T 7812'
+  whichreg catalog find L78M05CDT
   whichreg catalog find 'LM3*K' --format json`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
