@@ -1,6 +1,7 @@
 package main
 
 import (
+	"os"
 	"strings"
 	"testing"
 
@@ -78,4 +79,24 @@ func TestEveryCommandTeaches(t *testing.T) {
 		}
 	}
 	walk(newRootCmd(app))
+}
+
+// TestClosedPipe: writing into a pipe whose reader has gone, without a
+// SIGPIPE to end the process (the pipe is not standard output here, as when
+// SIGPIPE is ignored), is an I/O failure with a message: exit 3.
+func TestClosedPipe(t *testing.T) {
+	r, w, err := os.Pipe()
+	if err != nil {
+		t.Fatal(err)
+	}
+	r.Close()
+	defer w.Close()
+	app, _, errOut := testApp()
+	app.IO.Out = w
+	if code := run(app, []string{"catalog", "list"}); code != exitIO {
+		t.Errorf("exit %d, want %d; stderr:\n%s", code, exitIO, errOut)
+	}
+	if !strings.Contains(errOut.String(), "writing the output") || !strings.Contains(errOut.String(), "broken pipe") {
+		t.Errorf("stderr = %q", errOut)
+	}
 }
