@@ -20,7 +20,7 @@ func thermalPath(in Input, c cand) (float64, string) {
 	case c.Family.Switching():
 		return p.ThetaJA, fmt.Sprintf("free air, θJA %g °C/W", p.ThetaJA)
 	case o != nil && o.SMD:
-		return p.ThetaJA, fmt.Sprintf("θJA %g °C/W on the board copper the datasheet assumes (about 1 in² of 1 oz copper; the old heat sink is not used)", p.ThetaJA)
+		return p.ThetaJA, fmt.Sprintf("θJA %g °C/W, assuming the board gives it the copper area of the datasheet's test board (see its footprint note; the old heat sink is not used)", p.ThetaJA)
 	case cd.HeatsinkCW > 0 && o != nil && o.Isolated:
 		jc := p.ThetaJC
 		if jc == 0 {
