@@ -139,9 +139,14 @@ func Identify(c *catalog.Catalog, ev *Evidence, opts Options) (*Result, error) {
 	evidenceUsed := false
 	for i, h := range hyps {
 		rs := priorReasons(h, ev, c, sc.text)
+		// The not-in-catalog prior is a share of the catalog's mass before
+		// the era: when every family is younger than the equipment, the
+		// part is likelier something the catalog lacks.
 		prior := 0.0
 		for _, r := range rs {
-			prior += r.Weight
+			if r.Evidence == "prior" {
+				prior += r.Weight
+			}
 		}
 		priorMass += math.Exp(prior)
 		ls := sc.likelihoods(h)
