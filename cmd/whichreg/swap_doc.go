@@ -129,7 +129,7 @@ func swapDocOf(res *replace.Result) swapDoc {
 // units in the keys, null for what is not there).
 func writeRecordJSON(w io.Writer, rec record.Record) error {
 	ch := rec.Chosen
-	chosen := chosenDoc{Family: ch.Family, Package: ch.Package, VoutV: ch.VoutV, Verdict: string(ch.Verdict), Deciding: ch.Deciding,
+	chosen := chosenDoc{Family: ch.Family, Outline: ch.Package, VoutV: ch.VoutV, Verdict: string(ch.Verdict), Deciding: ch.Deciding,
 		Summary: ch.Summary, Checks: []checkDoc{}, Install: nonNil(ch.Install), OrderCodes: nonNil(ch.OrderCodes), LeadMap: []leadLinkDoc{},
 		Rewire: ch.Rewire, DatasheetOf: ch.DatasheetOf}
 	for _, c := range ch.Checks {
@@ -143,22 +143,46 @@ func writeRecordJSON(w io.Writer, rec record.Record) error {
 		}
 		chosen.LeadMap = append(chosen.LeadMap, ld)
 	}
+	ident := []inferCandDoc{}
+	for _, c := range rec.Identification {
+		cd := inferCandDoc{Family: c.Family, Outline: c.Package, VoutV: c.VoutV, Probability: c.Probability, Score: finite(c.Score, 4),
+			Reasons: []reasonDoc{}}
+		for _, r := range c.Reasons {
+			cd.Reasons = append(cd.Reasons, reasonDoc{r.Evidence, finite(r.Weight, 4), r.Text})
+		}
+		ident = append(ident, cd)
+	}
+	o := rec.Original
+	orig := recordOriginalDoc{Family: o.Family, Outline: o.Package, VoutV: o.VoutV, Probability: o.Probability, Named: o.Named}
 	doc := struct {
 		Schema string `json:"schema"`
 		record.Record
-		Chosen     chosenDoc     `json:"chosen"`
-		Conditions conditionsDoc `json:"conditions"`
-	}{report.Schema("record"), rec, chosen, conditionsDocOf(rec.Conditions)}
+		Identification []inferCandDoc    `json:"identification"`
+		Original       recordOriginalDoc `json:"original"`
+		Chosen         chosenDoc         `json:"chosen"`
+		Conditions     conditionsDoc     `json:"conditions"`
+	}{report.Schema("record"), rec, ident, orig, chosen, conditionsDocOf(rec.Conditions)}
 	enc := json.NewEncoder(w)
 	enc.SetIndent("", "  ")
 	enc.SetEscapeHTML(false)
 	return enc.Encode(doc)
 }
 
+// recordOriginalDoc is the part replaced, in the record's JSON.
+type recordOriginalDoc struct {
+	Family      string   `json:"family"`
+	Outline     string   `json:"outline"`
+	VoutV       *float64 `json:"vout_v"`
+	Probability float64  `json:"probability"`
+	// Named is true when the technician named it (--original) rather than
+	// taking identification's leader.
+	Named bool `json:"named"`
+}
+
 // chosenDoc is the chosen replacement in the record's JSON.
 type chosenDoc struct {
 	Family      string        `json:"family"`
-	Package     string        `json:"package"`
+	Outline     string        `json:"outline"`
 	VoutV       *float64      `json:"vout_v"`
 	Verdict     string        `json:"verdict"`
 	Deciding    string        `json:"deciding"`
