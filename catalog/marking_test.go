@@ -130,6 +130,8 @@ var markingCases = []markingCase{
 	{"LM1117DTX-5.0", "1117", []float64{5}, "DPAK", "Natl LM1117 DS100919: DT = TO-252"},
 	{"LM1117T-2.85", "1117", []float64{2.85}, "TO-220", "Natl LM1117 DS100919: T = TO-220"},
 	{"AMS1117-3.3", "1117", []float64{3.3}, "", "AMS1117, from memory"},
+	{"AZ1117-3.3", "1117", []float64{3.3}, "", "BCD / Diodes AZ1117, from memory"},
+	{"NCV7805BTG", "78xx", []float64{5}, "TO-220", "onsemi MC7800/D: NCV prefix for automotive, B grade, T = TO-220, G Pb-free"},
 	{"LT1084CT", "1084", nil, "TO-220", "LT1083/84/85: CT = TO-220"},
 	{"LT1085CT", "1085", nil, "TO-220", "LT1083/84/85: CT = TO-220"},
 	{"LT1086CM", "1086", nil, "D2PAK", "LT1086: CM = TO-263 (DD), from memory"},

@@ -98,6 +98,12 @@ func selfContradictions(ev *Evidence) []string {
 			}
 		}
 	}
+	if m := ev.Mount; m != nil && m.ChassisHeatsink != nil && *m.ChassisHeatsink && (m.Insulator == "none" || m.Insulator == "grease") {
+		if v, ok := caseVolts(ev); ok && math.Abs(v) > 0.3 {
+			out = append(out, fmt.Sprintf("the tab or can reads %+.2f V, but the notes have it bare on a grounded heat sink, which would hold it at 0 V: "+
+				"there is an insulator (mount.insulator), or the package is an insulated one", v))
+		}
+	}
 	if cs := ev.Case; cs != nil && cs.TiedToPin != nil && *cs.TiedToPin > 0 {
 		if p, ok := ev.Lead(*cs.TiedToPin); ok {
 			if cs.Volts.Set && p.Volts.Set && math.Abs(cs.Volts.V-p.Volts.V) > math.Max(0.2, 0.05*math.Abs(p.Volts.V)) {
@@ -307,10 +313,32 @@ func (sc *scene) unitSlips() []string {
 			out = append(out, fmt.Sprintf("output.amps = %g A: no part in the catalog carries even half of that; if it is milliamperes, write \"%gm\"", o.Amps.V, o.Amps.V))
 		}
 	}
+	for _, k := range ev.Leads() {
+		if p, _ := ev.Lead(k); p.Volts.Set && math.Abs(p.Volts.V) > 1000 {
+			out = append(out, fmt.Sprintf("pins.%d.volts = %g V: if that is millivolts, write \"%gm\"", k, p.Volts.V, p.Volts.V))
+		}
+	}
 	if in := ev.Input; in != nil && in.FilterUF.Set && in.FilterUF.V < 1 {
 		if _, ok := in.Rectifier.Topology(); ok {
 			out = append(out, fmt.Sprintf("input.filter_uf = %g µF is far too small for a reservoir capacitor; the key is in microfarads (write 2200 for 2200 µF)", in.FilterUF.V))
 		}
 	}
 	return out
+}
+
+// caseVolts returns the case's reading, or that of the lead it is tied to.
+func caseVolts(ev *Evidence) (float64, bool) {
+	cs := ev.Case
+	if cs == nil {
+		return 0, false
+	}
+	if cs.Volts.Set {
+		return cs.Volts.V, true
+	}
+	if cs.TiedToPin != nil && *cs.TiedToPin > 0 {
+		if p, ok := ev.Lead(*cs.TiedToPin); ok && p.Volts.Set {
+			return p.Volts.V, true
+		}
+	}
+	return 0, false
 }
