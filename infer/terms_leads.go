@@ -194,8 +194,12 @@ func glanceDifference(a, b *catalog.Outline) string {
 	if ka, kb := kind(a), kind(b); ka != kb {
 		return ka + " against " + kb
 	}
-	tiny := func(o *catalog.Outline) bool { return !o.Tab && !o.MetalCan && o.PitchMM > 0 && o.PitchMM < tinyPitchMaxM }
-	power := func(o *catalog.Outline) bool { return o.MetalCan || (o.PitchMM >= tinyPitchMaxM && (o.Tab || o.Isolated || o.MountingHole)) }
+	tiny := func(o *catalog.Outline) bool {
+		return !o.Tab && !o.MetalCan && o.PitchMM > 0 && o.PitchMM < tinyPitchMaxM
+	}
+	power := func(o *catalog.Outline) bool {
+		return o.MetalCan || (o.PitchMM >= tinyPitchMaxM && (o.Tab || o.Isolated || o.MountingHole))
+	}
 	switch {
 	case tiny(a) && power(b), power(a) && tiny(b):
 		return "a tiny body against a power package"
