@@ -62,16 +62,22 @@ func benchLoadN(b *testing.B, n int) {
 func BenchmarkLoad1k(b *testing.B)  { benchLoadN(b, 1000) }
 func BenchmarkLoad10k(b *testing.B) { benchLoadN(b, 10000) }
 
-func benchFindN(b *testing.B, n int) {
+func benchFindN(b *testing.B, n int) { benchFindQuery(b, n, "?M3?7") }
+
+func benchFindQuery(b *testing.B, n int, query string) {
 	base, _ := builtin.Files()
 	f, _ := catalog.Load("gen.toml", gencat.Generate(n))
 	c := catalog.Merge(append(base, f)...)
 	for b.Loop() {
-		if hits := catalog.Find(c, "?M3?7"); len(hits) == 0 {
+		if hits := catalog.Find(c, query); len(hits) == 0 {
 			b.Fatal("no hits")
 		}
 	}
 }
+
+// BenchmarkFindMarking10k: a whole marking (maker prefix, number, package
+// suffix, a date code on the second line) over 10 000 extra families.
+func BenchmarkFindMarking10k(b *testing.B) { benchFindQuery(b, 10000, "L7805CV 9402") }
 
 func BenchmarkFind1k(b *testing.B)   { benchFindN(b, 1000) }
 func BenchmarkFind10k(b *testing.B)  { benchFindN(b, 10000) }

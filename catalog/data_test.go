@@ -148,3 +148,33 @@ func TestCorrectedFigures(t *testing.T) {
 		}
 	}
 }
+
+// TestOrderCodeVoltages: an order code that names a fixed voltage
+// (LM1085IT-3.3/NOPB) belongs to the fixed family, never to the adjustable
+// one of the same number, and the voltage it names is one the family is sold
+// at. The makers' ordering tables write the voltage as the suffix (-3.3, -5.0,
+// 33) and "-ADJ" or nothing for the adjustable part (which then ties with
+// the fixed family: LD1117STR).
+func TestOrderCodeVoltages(t *testing.T) {
+	c := builtin.Catalog()
+	for _, f := range c.Sorted() {
+		if f.NonRegulator() {
+			continue
+		}
+		for _, p := range f.Packages {
+			for _, oc := range p.OrderCodes {
+				d := catalog.DecodeMarking(c, oc)
+				h, ok := d.Hit(f.ID)
+				if !ok {
+					continue // TestMarkingOrderCodes reports it
+				}
+				switch {
+				case f.Adjustable() && d.Hits[0].Family != f && d.Hits[0].Score > h.Score:
+					t.Errorf("%s under adjustable %s %s reads first as %s (%s): a voltage suffix belongs to the fixed family", oc, f.ID, p.Outline, d.Hits[0].Family.ID, d.Hits[0].Detail)
+				case !f.Adjustable() && len(h.VoutV) > 0 && !slices.ContainsFunc(h.VoutV, func(v float64) bool { return slices.Contains(f.OutputsV, v) }):
+					t.Errorf("%s under %s %s names %v V, a voltage the family lacks (%v)", oc, f.ID, p.Outline, h.VoutV, f.OutputsV)
+				}
+			}
+		}
+	}
+}

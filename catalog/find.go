@@ -156,7 +156,7 @@ func fuzzyHits(c *Catalog, query string, found []Hit) []Hit {
 		}
 		seen[f.ID] = true
 		fz = append(fz, Hit{Family: f, How: "fuzzy", Pattern: pats[m.Index], Score: float64(m.Score),
-			Detail: fmt.Sprintf("the legible characters %q appear in order in %q (fuzzy score %d)", lit, m.Str, m.Score)})
+			Detail: fmt.Sprintf("read loosely: the legible characters %q appear in order in %q (fuzzy score %d)", lit, m.Str, m.Score)})
 	}
 	sort.SliceStable(fz, func(i, j int) bool { return fz[i].Score > fz[j].Score })
 	return fz

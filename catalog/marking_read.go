@@ -341,10 +341,19 @@ func (r *reader) byDevice(have []Hit) []Hit {
 			}
 			seen[f.ID] = true
 			out = append(out, Hit{Family: f, How: "prefix", Pattern: t.tran, Score: float64(len(t.tran)),
-				Detail: fmt.Sprintf("%q opens with %s, a transistor type prefix: this is no regulator", t.raw, t.tran)})
+				Detail: fmt.Sprintf("read as %s + %s: %s is a transistor type prefix, this is no regulator", t.tran, afterPrefix(t), t.tran)})
 		}
 	}
 	return out
+}
+
+// afterPrefix returns what follows a token's transistor prefix.
+func afterPrefix(t *token) string {
+	q := string(t.q)
+	if i := strings.Index(q, t.tran); i >= 0 {
+		return q[i+len(t.tran):]
+	}
+	return q
 }
 
 // fiveLeadOf reports whether po is a many-lead form of o: one of po's names

@@ -174,7 +174,7 @@ func calcDividerRun(o *calcDividerOptions) error {
 		report.Num(sp.MinLoadA, "A"), report.Num(circuit.DividerSpan*sp.MinLoadA, "A")), width, "", "  ")
 	writeDividerPower(o, c)
 	if c.Trimmer {
-		report.Fill(out, fmt.Sprintf("the nearest %s pair misses the target by more than ±%g %%: make part of R2 a trimmer and set the output", o.Series, sp.Tolerance*100), width, "", "  ")
+		report.Fill(out, fmt.Sprintf("the nearest %s pair misses the target by more than ±%s: make part of R2 a trimmer and set the output", o.Series, report.Percent(sp.Tolerance)), width, "", "  ")
 	}
 	return nil
 }

@@ -91,7 +91,7 @@ func outputsText(f *catalog.Family) string {
 		return string(f.Device)
 	}
 	if f.Adjustable() {
-		return fmt.Sprintf("%s%g V ref", sign, f.VrefV)
+		return sign + report.Num(f.VrefV, "V") + " ref"
 	}
 	var vs []string
 	for _, v := range f.OutputsV {
