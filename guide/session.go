@@ -121,11 +121,11 @@ const (
 
 // Reply is the session's answer to one line.
 type Reply struct {
-	Kind      ReplyKind
-	Key       string   // the key answered, skipped, undone or picked
-	Message   string   // Refused: why, with the loader's message
-	Conflicts []string // Accepted: conflicts the answer brought
-	Lines     []string // Why: the leader's reasons
+	Kind      ReplyKind // what the session did with the line
+	Key       string    // the key answered, skipped, undone or picked
+	Message   string    // Refused: why, with the loader's message
+	Conflicts []string  // Accepted: conflicts the answer brought
+	Lines     []string  // Why: the leader's reasons
 }
 
 // refKey is the question asked first when there is no file yet.
