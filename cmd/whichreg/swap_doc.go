@@ -31,6 +31,15 @@ type originalDoc struct {
 	// FromInfer is true when the original is identification's leader, false
 	// when it was named with --original.
 	FromInfer bool `json:"from_infer"`
+	// Shortfalls are the checks the original itself fails in this circuit.
+	Shortfalls []shortfallDoc `json:"shortfalls"`
+}
+
+// shortfallDoc is a check the original part fails in this circuit too.
+type shortfallDoc struct {
+	Check    checkDoc `json:"check"`
+	Text     string   `json:"text"`      // the summary sentence
+	PassedBy *string  `json:"passed_by"` // the best usable candidate that passes it; null when none
 }
 
 // replacementDoc is one candidate and its checks.
@@ -110,8 +119,15 @@ func conditionsDocOf(c replace.Conditions) conditionsDoc {
 func swapDocOf(res *replace.Result) swapDoc {
 	o := res.Original
 	d := swapDoc{Schema: report.Schema("swap"),
-		Original:    originalDoc{o.Family.ID, o.Package.Outline, signedV(o.Hypothesis), round(o.Probability, 6), !o.Named},
+		Original:    originalDoc{o.Family.ID, o.Package.Outline, signedV(o.Hypothesis), round(o.Probability, 6), !o.Named, []shortfallDoc{}},
 		Assumptions: nonNil(res.Assumptions), Conditions: conditionsDocOf(res.Conditions), Hidden: res.Hidden, Replacements: []replacementDoc{}}
+	for _, sf := range res.OriginalShortfalls {
+		sd := shortfallDoc{Check: checkDocOf(sf.Check), Text: sf.Sentence(o.Label())}
+		if sf.PassedBy != "" {
+			sd.PassedBy = &sf.PassedBy
+		}
+		d.Original.Shortfalls = append(d.Original.Shortfalls, sd)
+	}
 	for _, r := range res.Replacements {
 		rd := replacementDoc{Family: r.Family.ID, Outline: r.Package.Outline, VoutV: signedV(r.Hypothesis), Verdict: string(r.Verdict),
 			Deciding: string(r.Deciding), DecidingWhy: r.DecidingWhy, Checks: []checkDoc{}, Install: nonNil(r.Install)}

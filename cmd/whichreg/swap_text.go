@@ -48,6 +48,9 @@ func writeSwapText(w io.Writer, width int, res *replace.Result, details int, qui
 	report.Fill(w, originalLine(res), width, "", "  ")
 	report.Fill(w, fmt.Sprintf("circuit: %s out, %s to %s; input %s at its lowest (%s), %s at its highest (%s)",
 		v(cd.VoutV), report.Num(cd.LoadMinA, "A"), report.Num(cd.LoadMaxA, "A"), v(cd.TroughV), cd.TroughAt, v(cd.PeakV), cd.PeakAt), width, "", "  ")
+	for _, sf := range res.OriginalShortfalls {
+		report.Fill(w, "note: "+sf.Sentence(res.Original.Label()), width, "", "  ")
+	}
 	if !quiet {
 		fmt.Fprintln(w)
 		report.Fill(w, swapLegend, width, "", "")
@@ -92,7 +95,11 @@ func writeSwapText(w io.Writer, width int, res *replace.Result, details int, qui
 }
 
 func writeSwapMarkdown(w io.Writer, res *replace.Result, details int) {
-	fmt.Fprintf(w, "# Replacements\n\n%s\n\n%s\n\n| # | candidate | verdict | deciding check |\n| ---: | --- | --- | --- |\n", mdEscape(originalLine(res)), mdEscape(swapLegend))
+	fmt.Fprintf(w, "# Replacements\n\n%s\n\n", mdEscape(originalLine(res)))
+	for _, sf := range res.OriginalShortfalls {
+		fmt.Fprintf(w, "Note: %s\n\n", mdEscape(sf.Sentence(res.Original.Label())))
+	}
+	fmt.Fprintf(w, "%s\n\n| # | candidate | verdict | deciding check |\n| ---: | --- | --- | --- |\n", mdEscape(swapLegend))
 	for i, r := range res.Replacements {
 		fmt.Fprintf(w, "| %d | %s | %s | %s (%s) |\n", i+1, r.Label(), r.Verdict, r.Deciding, r.DecidingWhy)
 	}

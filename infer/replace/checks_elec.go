@@ -95,17 +95,52 @@ func checkLifted(in Input, c cand, nom float64, ch *Check) {
 	default:
 		ch.Status = Work
 	}
-	if ch.Status != Pass && n.Resistors() {
-		r2 := (target - n.BottomV - nom) / (nom/n.RTopOhm + iqTypA(f))
-		if lo, hi2, ok := circuit.Nearest(circuit.Values(circuit.E24, 1, 1e6), r2); ok && r2 > 0 {
-			best := lo
-			if math.Abs(hi2-r2) < math.Abs(lo-r2) {
-				best = hi2
-			}
-			ch.Text += fmt.Sprintf("; a bottom resistor of about %s (E24 %s) restores it", ohms(r2), ohms(best))
-			if ch.Status == Work {
-				ch.Action = fmt.Sprintf("resistors: change the common-lead resistor from %s to %s to restore %s%.2f V", ohms(n.RBottomOhm), ohms(best), s, target)
-			}
+	if ch.Status == Pass || !n.Resistors() {
+		if ch.Status == Work {
+			ch.Status = Fail // diodes or a zener: nothing to retune
+		}
+		return
+	}
+	// A ground current that rises with load moves the output by the rise
+	// times the bottom resistor; no bottom resistor narrows that spread. It
+	// can only centre it in the ±5 % window: with the mean of the typical
+	// and the full-load ground current (the resistors' equation as in
+	// [Network.Lift]).
+	if (hi-got)/target > 0.10 {
+		ch.Status = Fail
+		ch.Margin = math.Min(ch.Margin, 1-(hi-got)/target/0.10)
+		ch.Text += fmt.Sprintf("; its ground current rises with load, which moves the output by %.2f V through the %s bottom resistor, more than the ±5 %% window: no resistor value fixes a spread; keep a part with a steady ground current (an NPN-pass regulator)", hi-got, ohms(n.RBottomOhm))
+		return
+	}
+	imid := (iqTypA(f) + f.GroundCurrentA(in.Cond.LoadMaxA)) / 2
+	r2 := (target - n.BottomV - nom) / (nom/n.RTopOhm + imid)
+	lo, hi2, ok := circuit.Nearest(circuit.Values(circuit.E24, 1, 1e6), r2)
+	if !ok || r2 <= 0 {
+		return
+	}
+	best := lo
+	if math.Abs(hi2-r2) < math.Abs(lo-r2) {
+		best = hi2
+	}
+	nn := *n
+	nn.RBottomOhm = best
+	gotN, hiN := nom+nn.Lift(nom, iqTypA(f)), nom+nn.Lift(nom, f.GroundCurrentA(in.Cond.LoadMaxA))
+	dN := math.Max(math.Abs(gotN-target), math.Abs(hiN-target)) / target
+	switch {
+	case math.Abs(best-n.RBottomOhm) < 1e-9 || dN >= d:
+		if ch.Status == Work {
+			ch.Status = Fail // the present resistor is already the best
+			ch.Text += "; no E24 bottom resistor brings it inside ±5 %"
+		}
+	case dN <= 0.05:
+		ch.Text += fmt.Sprintf("; a bottom resistor of %s centres it (%s%.2f to %s%.2f V)", ohms(best), s, gotN, s, hiN)
+		if ch.Status == Work {
+			ch.Action = fmt.Sprintf("resistors: change the common-lead resistor from %s to %s to centre the output on %s%.2f V", ohms(n.RBottomOhm), ohms(best), s, target)
+		}
+	default:
+		if ch.Status == Work {
+			ch.Status = Fail
+			ch.Text += fmt.Sprintf("; even the best E24 bottom resistor (%s) leaves %s%.2f to %s%.2f V, outside ±5 %%", ohms(best), s, gotN, s, hiN)
 		}
 	}
 }

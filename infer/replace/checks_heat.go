@@ -84,15 +84,23 @@ func checkThermal(in Input, c cand) (Check, bool) {
 	return ch, true
 }
 
-// esrEstimate is a rough ESR of a capacitor by type and value, ohms:
-// general-purpose aluminium electrolytics about 150 Ω·µF / C (a fit to the
-// chart quoted in shared/reference/methods.md §6: 10 µF 20 Ω, 100 µF 1.6 Ω
-// at 16 V), solid tantalum about 3 Ω at 1 µF falling as 1/√C (from memory),
-// ceramic 0.01 Ω (methods.md §6: MLCC 0.01–0.1 Ω).
+// esrEstimate is the typical ESR of a capacitor by type and value, ohms,
+// at the tens of kilohertz where an LDO's loop crosses over:
+//   - general-purpose wet aluminium electrolytics about 150 Ω·µF / C. Check
+//     values: the ESR chart quoted in shared/reference/methods.md §6 (10 µF
+//     20 Ω at 10 V, 100 µF 1.6 Ω at 16 V and 1.4 Ω at 25 V: 140–200 Ω·µF),
+//     and the makers' dissipation factor: tan δ at most 0.16 (16 V) and
+//     0.14 (25 V) at 120 Hz, 20 °C (Lelon RGA general-purpose series
+//     specification table) gives ESR ≤ tan δ / (2π·120 Hz·C) = 212 and
+//     186 Ω·µF / C at 120 Hz, which the 100 kHz figure stays below. So an
+//     estimate is good to about ±40 %; [esrSpread] says so in the sentence.
+//   - solid tantalum about 3 Ω at 1 µF falling as 1/√C (from memory; the
+//     reference notes a conflict, methods.md §6 and §9 item 5).
+//   - ceramic 0.01 Ω (methods.md §6: MLCC 0.01–0.1 Ω).
 func esrEstimate(kind infer.CapType, uf float64) float64 {
 	switch kind {
 	case infer.CapElectrolytic:
-		return 150 / math.Max(uf, 0.1)
+		return esrAlOhmUF / math.Max(uf, 0.1)
 	case infer.CapTantalum:
 		return 3 / math.Sqrt(math.Max(uf, 0.1))
 	case infer.CapCeramic:
@@ -100,6 +108,21 @@ func esrEstimate(kind infer.CapType, uf float64) float64 {
 	}
 	return 0
 }
+
+const (
+	// esrAlOhmUF is a general-purpose aluminium electrolytic's ESR times its
+	// capacitance, Ω·µF (see [esrEstimate]).
+	esrAlOhmUF = 150
+	// esrSpread is how far a general-purpose aluminium part's ESR may sit
+	// from the estimate either way at room temperature (the 140–212 Ω·µF
+	// bracket above, and ageing: common practice, no source).
+	esrSpread = 0.4
+	// esrColdFactor is the rise of an aluminium electrolytic's impedance
+	// from 20 °C to −25 °C: at most 3 for 16–50 V parts under 16 mm
+	// diameter (Lelon RGA series, impedance ratio Z(−25 °C)/Z(+20 °C));
+	// about 30× from 25 °C to −40 °C (TI LM3940 datasheet, SNVS114G).
+	esrColdFactor = 3
+)
 
 func checkCout(in Input, c cand) (Check, bool) {
 	f, cp := c.Family, in.Cap
@@ -125,18 +148,20 @@ func checkCout(in Input, c cand) (Check, bool) {
 	case cp.Silent:
 		ch.ValueText, ch.Margin, ch.Status = "unknown", 0, Warn
 		ch.Text = "the board's output capacitor is not described: check it meets " + coutLimit(f)
-	case cp.UFSet && req.MinUF > 0 && cp.UF < req.MinUF:
-		ch.Margin, ch.Status = cp.UF/req.MinUF-1, Fail
-		ch.Text = fmt.Sprintf("needs at least %g µF at the output for stability; the board has %g µF", req.MinUF, cp.UF)
 	case cp.Type == infer.CapCeramic && !req.CeramicOK:
-		ch.Margin, ch.Status = -1, Fail
+		ch.Margin, ch.Status = -1, Work
 		ch.Text = "not stable with ceramic capacitors alone: its loop needs the ESR of a tantalum or aluminium part"
+		ch.Action = capAdvice(f, cp)
+	case cp.UFSet && req.MinUF > 0 && cp.UF < req.MinUF:
+		ch.Margin, ch.Status = cp.UF/req.MinUF-1, Work
+		ch.Text = fmt.Sprintf("needs at least %g µF at the output for stability; the board has %g µF", req.MinUF, cp.UF)
+		ch.Action = capAdvice(f, cp)
 	case cp.UFSet && f.Cout.MaxUF > 0 && cp.UF > f.Cout.MaxUF:
-		ch.Margin, ch.Status = f.Cout.MaxUF/cp.UF-1, Fail
+		ch.Limit, ch.Margin, ch.Status, ch.Action = num(f.Cout.MaxUF*1e-6), f.Cout.MaxUF/cp.UF-1, Fail, ""
 		ch.Text = fmt.Sprintf("more than the %g µF it can start into", f.Cout.MaxUF)
 	case cp.UFSet && cp.Type != "" && cp.UF < f.MinCoutUF(string(cp.Type)):
 		need := f.MinCoutUF(string(cp.Type))
-		ch.Margin, ch.Status = cp.UF/need-1, Fail
+		ch.Margin, ch.Status, ch.Action = cp.UF/need-1, Work, capAdvice(f, cp)
 		ch.Text = fmt.Sprintf("the datasheet asks %g µF of solid tantalum or %g µF of aluminium electrolytic; the board has %g µF %s", req.MinUF, f.MinCoutUF(string(infer.CapElectrolytic)), cp.UF, cp.Type)
 	case !needs:
 		ch.LimitText, ch.Margin, ch.Status, ch.Action = "none needed", 1, Pass, ""
@@ -156,24 +181,99 @@ func checkCout(in Input, c cand) (Check, bool) {
 	return ch, true
 }
 
-// coutESR judges a capacitor of known type and value against the ESR window.
+// coutESR judges a capacitor of known type and value against the ESR
+// window. When the ESR decides, the row's figures are the ESR in ohms
+// against the window's end it misses (or comes nearest to).
 func coutESR(f *catalog.Family, cp Cap, ch *Check) {
 	req := f.Cout
 	esr := esrEstimate(cp.Type, cp.UF)
+	esrRow := func(limit float64) {
+		ch.Unit, ch.Value, ch.Limit = "Ω", num(esr), num(limit)
+		ch.ValueText += fmt.Sprintf(", ESR about %s", ohmsG(esr))
+		ch.LimitText = "ESR " + esrWindow(req)
+		if req.MinUF > 0 {
+			ch.LimitText = fmt.Sprintf("≥ %g µF, ", f.MinCoutUF(string(cp.Type))) + ch.LimitText
+		}
+	}
+	al := cp.Type == infer.CapElectrolytic
 	switch {
 	case req.ESRMaxOhm > 0 && esr > req.ESRMaxOhm:
-		ch.ValueText += fmt.Sprintf(", ESR about %.2g Ω", esr)
-		ch.Margin, ch.Status = req.ESRMaxOhm/esr-1, Warn
-		ch.Text = fmt.Sprintf("the capacitor's ESR (about %.2g Ω, and up to 30× more when cold) is above the %.2g Ω the part tolerates", esr, req.ESRMaxOhm)
+		esrRow(req.ESRMaxOhm)
+		ch.Margin, ch.Status = 1-esr/req.ESRMaxOhm, Work
+		ch.Text = fmt.Sprintf("the capacitor's ESR (about %s for %g µF %s", ohmsG(esr), cp.UF, cp.Type)
+		if al {
+			ch.Text += fmt.Sprintf(", ±%.0f %% by make and age, %d× more at −25 °C", esrSpread*100, esrColdFactor)
+		}
+		ch.Text += fmt.Sprintf(") is above the %s the part tolerates: it may oscillate", ohmsG(req.ESRMaxOhm))
+		if al && esr*(1-esrSpread) <= req.ESRMaxOhm {
+			ch.Text += fmt.Sprintf("; only an ESR meter reading well under %s, cold, would let it stay", ohmsG(req.ESRMaxOhm))
+		}
+		ch.Action = esrAdvice(f, cp)
 	case req.ESRMinOhm > 0 && esr > 0 && esr < req.ESRMinOhm:
-		ch.ValueText += fmt.Sprintf(", ESR about %.2g Ω", esr)
-		ch.Margin, ch.Status = esr/req.ESRMinOhm-1, Fail
-		ch.Text = fmt.Sprintf("the capacitor's ESR (about %.2g Ω) is below the %.2g Ω the loop needs: it may oscillate", esr, req.ESRMinOhm)
+		esrRow(req.ESRMinOhm)
+		ch.Margin, ch.Status = esr/req.ESRMinOhm-1, Work
+		ch.Text = fmt.Sprintf("the capacitor's ESR (about %s) is below the %s the loop needs: it may oscillate", ohmsG(esr), ohmsG(req.ESRMinOhm))
+		ch.Action = esrAdvice(f, cp)
+	case al && req.ESRMaxOhm > 0 && esr*esrColdFactor > req.ESRMaxOhm:
+		esrRow(req.ESRMaxOhm)
+		ch.Margin, ch.Status = 1-esr/req.ESRMaxOhm, Warn
+		ch.Text = fmt.Sprintf("the capacitor's ESR (about %s, ±%.0f %% by make and age) is inside the %s the part tolerates at room temperature, but rises about %d× at −25 °C to about %s: if the equipment works in the cold, fit a low-ESR or tantalum part",
+			ohmsG(esr), esrSpread*100, ohmsG(req.ESRMaxOhm), esrColdFactor, ohmsG(esr*esrColdFactor))
+		ch.Action = strings.Replace(esrAdvice(f, cp), "capacitor: ", "capacitor, if the equipment works in the cold: ", 1)
 	default:
 		ch.Margin, ch.Status = 0.5, Pass
 		ch.Text = "within the part's output-capacitor requirement"
 	}
 }
+
+// esrAdvice says which capacitor brings the ESR inside the family's window:
+// a tantalum or low-ESR aluminium of the value the datasheet asks when the
+// ESR is too high; a resistor in series with the ceramic (TI's advice: in
+// series with the capacitor, not in the output line; methods.md §6) or a
+// tantalum when it is too low.
+func esrAdvice(f *catalog.Family, cp Cap) string {
+	req := f.Cout
+	uf := math.Max(f.MinCoutUF(string(infer.CapTantalum)), math.Max(cp.UF, 1))
+	window := esrWindow(req)
+	if esrEstimate(cp.Type, cp.UF) < req.ESRMinOhm && cp.UF >= uf {
+		r := math.Sqrt(math.Max(req.ESRMinOhm, 0.01) * req.ESRMaxOhm)
+		if req.ESRMaxOhm <= 0 {
+			r = 2 * req.ESRMinOhm
+		}
+		return fmt.Sprintf("capacitor: put a %s resistor in series with the %g µF ceramic (in the capacitor's leg, not the output line), or fit %g µF of solid tantalum with an ESR of %s, right at the output lead", ohmsG(r), cp.UF, uf, window)
+	}
+	return fmt.Sprintf("capacitor: replace the %g µF %s with %g µF of solid tantalum or low-ESR aluminium with a datasheet ESR of %s, right at the output lead", cp.UF, cp.Type, uf, window)
+}
+
+// capAdvice says which capacitor to fit when the board's is too small or of
+// a type the family forbids: inside the ESR window where the family has one,
+// else the datasheet's tantalum (or larger aluminium) value added at the
+// output lead.
+func capAdvice(f *catalog.Family, cp Cap) string {
+	req := f.Cout
+	if req.ESRMinOhm > 0 || req.ESRMaxOhm > 0 {
+		return esrAdvice(f, cp)
+	}
+	if cp.Type == infer.CapCeramic {
+		return fmt.Sprintf("capacitor: replace the %g µF ceramic with at least %g µF of solid tantalum (or %g µF aluminium) right at the output lead", cp.UF, req.MinUF, f.MinCoutUF(string(infer.CapElectrolytic)))
+	}
+	return fmt.Sprintf("capacitor: add at least %g µF of solid tantalum (or %g µF aluminium) right at the output lead", req.MinUF, f.MinCoutUF(string(infer.CapElectrolytic)))
+}
+
+// esrWindow writes a family's ESR window: "0.1–10 Ω", or "up to 3 Ω"
+// when it has no lower end.
+func esrWindow(c catalog.COut) string {
+	if c.ESRMinOhm <= 0 {
+		return "up to " + trim(c.ESRMaxOhm) + " Ω"
+	}
+	if c.ESRMaxOhm <= 0 {
+		return "from " + trim(c.ESRMinOhm) + " Ω"
+	}
+	return trim(c.ESRMinOhm) + "–" + trim(c.ESRMaxOhm) + " Ω"
+}
+
+// ohmsG writes a resistance with two significant figures ("15 Ω", "0.1 Ω").
+func ohmsG(r float64) string { return fmt.Sprintf("%.2g Ω", r) }
 
 func coutLimit(f *catalog.Family) string {
 	c := f.Cout
@@ -186,7 +286,7 @@ func coutLimit(f *catalog.Family) string {
 		parts = append(parts, s)
 	}
 	if c.ESRMinOhm > 0 || c.ESRMaxOhm > 0 {
-		parts = append(parts, fmt.Sprintf("ESR %g–%g Ω", c.ESRMinOhm, c.ESRMaxOhm))
+		parts = append(parts, "ESR "+esrWindow(c))
 	}
 	if !c.CeramicOK {
 		parts = append(parts, "not ceramic alone")
@@ -204,7 +304,7 @@ func coutAdvice(f *catalog.Family) string {
 	c := f.Cout
 	switch {
 	case c.ESRMinOhm > 0 || c.ESRMaxOhm > 0:
-		return fmt.Sprintf("capacitor: fit %g µF or more of solid tantalum (ESR inside %g–%g Ω) right at the output lead", math.Max(c.MinUF, 10), c.ESRMinOhm, c.ESRMaxOhm)
+		return fmt.Sprintf("capacitor: fit %g µF or more of solid tantalum (ESR %s) right at the output lead", math.Max(c.MinUF, 10), esrWindow(c))
 	case c.MinUF > 0:
 		return fmt.Sprintf("capacitor: fit at least %g µF of solid tantalum (or %g µF aluminium) right at the output lead", c.MinUF, f.MinCoutUF(string(infer.CapElectrolytic)))
 	}

@@ -46,6 +46,32 @@ type Replacement struct {
 	MinMargin float64
 	// WorkCount is the number of checks that need work.
 	WorkCount int
+	// FailsLikeOriginal is true when the candidate is unsuitable only
+	// through checks the original part fails in this circuit too.
+	FailsLikeOriginal bool
+}
+
+// Shortfall is a check the original part itself fails in this circuit, and
+// the best candidate that passes it.
+type Shortfall struct {
+	Check      Check  // the original's own row
+	PassedBy   string // the best-ranked usable candidate that passes it; "" when none
+	PassedWith string // its value against its limit
+}
+
+// Sentence says it in words for the summary.
+func (s Shortfall) Sentence(orig string) string {
+	t := fmt.Sprintf("the original %s fails %s in this circuit too (%s against %s): %s",
+		orig, s.Check.Name, s.Check.ValueText, s.Check.LimitText, circuitWords(s.Check))
+	switch {
+	case s.PassedBy != "":
+		t += fmt.Sprintf("; %s passes it (%s)", s.PassedBy, s.PassedWith)
+	case s.Check.Name == CheckDropout:
+		t += "; no usable part passes it: the circuit needs more filter capacitance, a higher secondary or less load"
+	default:
+		t += "; no usable part passes it"
+	}
+	return t
 }
 
 // Check returns the candidate's check named n, or nil.
@@ -84,6 +110,9 @@ type Result struct {
 	Replacements []Replacement  // ranked: drop-in, needs-work, unsuitable
 	Conditions   Conditions     // the circuit numbers the checks used
 	Assumptions  []string       // defaults used where the evidence was silent
+	// OriginalShortfalls are the checks the original part itself fails in
+	// this circuit (nil when it passes them all).
+	OriginalShortfalls []Shortfall
 	// Hidden counts unsuitable candidates left out (without Options.All).
 	Hidden int
 }

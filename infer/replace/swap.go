@@ -42,6 +42,7 @@ func Swap(c *catalog.Catalog, ev *infer.Evidence, orig infer.Original, opts Opti
 			all = append(all, Evaluate(in, infer.Hypothesis{Family: f, Package: p, Outline: c.Outline(p.Outline)}))
 		}
 	}
+	res.OriginalShortfalls = originalShortfalls(in, orig, all)
 	sort.SliceStable(all, func(i, j int) bool { return better(&all[i], &all[j]) })
 	usable := 0
 	for _, r := range all {
@@ -59,11 +60,15 @@ func Swap(c *catalog.Catalog, ev *infer.Evidence, orig infer.Original, opts Opti
 	return res, nil
 }
 
-// better orders candidates: verdict; within needs-work the fewer checks
-// needing work; then the larger smallest margin; then commonness; then label.
+// better orders candidates: verdict; within unsuitable those that fail only
+// where the original fails too; within needs-work the fewer checks needing
+// work; then the larger smallest margin; then commonness; then label.
 func better(a, b *Replacement) bool {
 	if a.Verdict != b.Verdict {
 		return a.Verdict.rank() < b.Verdict.rank()
+	}
+	if a.Verdict == Unsuitable && a.FailsLikeOriginal != b.FailsLikeOriginal {
+		return a.FailsLikeOriginal // no worse here than the part that was there
 	}
 	if a.Verdict == NeedsWork && a.WorkCount != b.WorkCount {
 		return a.WorkCount < b.WorkCount
@@ -159,4 +164,94 @@ func afterPowerUp(in Input, c cand) []string {
 		fmt.Sprintf("after power-up: output %s%.2f V ±%g %% at full load; ripple at the output a few mV (a scope, AC-coupled)", s, c.outV, c.Family.Tolerance*100),
 		fmt.Sprintf("after 10 minutes at full load: case about %.0f °C (expect within 10 °C); do not touch it bare-handed", tcase),
 	}
+}
+
+// originalShortfalls runs the checks on the original part itself in this
+// circuit and returns those it fails (a circuit marginal at low mains, an
+// input above its own rating). Each candidate's failing check of the same
+// name says so in its sentence, and a candidate whose every failure is one
+// of these is marked [Replacement.FailsLikeOriginal].
+func originalShortfalls(in *Input, orig infer.Original, all []Replacement) []Shortfall {
+	own := Evaluate(in, orig.Hypothesis)
+	var out []Shortfall
+	failed := map[CheckName]*Check{}
+	for _, ch := range own.Checks {
+		switch ch.Name {
+		case CheckOutline, CheckPolarity, CheckPinout, CheckTab:
+			continue // the original fits its own place by definition
+		}
+		if ch.Status == Fail {
+			failed[ch.Name] = &ch
+			out = append(out, Shortfall{Check: ch})
+		}
+	}
+	if len(out) == 0 {
+		return nil
+	}
+	for i := range all {
+		r := &all[i]
+		fails, shared := 0, 0
+		for j := range r.Checks {
+			ch := &r.Checks[j]
+			if ch.Status != Fail {
+				continue
+			}
+			fails++
+			if oc, ok := failed[ch.Name]; ok {
+				shared++
+				ch.Text += "; the original part has the same shortfall (" + oc.ValueText + " against " + oc.LimitText + "): " + circuitWords(*oc)
+			}
+		}
+		r.FailsLikeOriginal = fails > 0 && fails == shared
+	}
+	// The best candidate that passes each shortfall: the lowest need among
+	// the candidates that are not unsuitable.
+	for k := range out {
+		var best *Replacement
+		for i := range all {
+			r := &all[i]
+			ch := r.Check(out[k].Check.Name)
+			if r.Verdict == Unsuitable || ch == nil || (ch.Status != Pass && ch.Status != Warn) {
+				continue
+			}
+			if best == nil || better(r, best) {
+				best = r
+			}
+		}
+		if best != nil {
+			ch := best.Check(out[k].Check.Name)
+			out[k].PassedBy = best.Label()
+			out[k].PassedWith = ch.ValueText + " against " + ch.LimitText
+		}
+	}
+	return out
+}
+
+// circuitWords says what the original's own shortfall means: the circuit
+// is marginal where it fails; or, for heat and current far beyond the
+// rating, the original could not have run so and the evidence is to be
+// checked (a confident verdict on a wrong load or mounting is the worst
+// outcome).
+func circuitWords(own Check) string {
+	if (own.Name == CheckThermal || own.Name == CheckCurrent) && own.Margin < -0.5 {
+		return "the original could not have run like this for long: check the load and the mounting the evidence gives"
+	}
+	return "the circuit, not the part, is marginal " + where(own.Name)
+}
+
+// where says under which condition a check's shortfall shows.
+func where(n CheckName) string {
+	switch n {
+	case CheckDropout:
+		return "at low mains and full load"
+	case CheckVinMax:
+		return "at high mains and light load"
+	case CheckThermal:
+		return "at high mains and full load"
+	case CheckCurrent:
+		return "at full load"
+	case CheckMinLoad:
+		return "at light load"
+	}
+	return "here"
 }

@@ -64,7 +64,11 @@ func original(t testing.TB, c *catalog.Catalog, ev *infer.Evidence, spec string)
 // verdict and check statuses of candidates in "# expect:" lines:
 //
 //	# expect: FAMILY:OUTLINE VERDICT check=status … check.margin=M check.value=V
+//	# shortfall: CHECK value=V limit=L passed_by=FAMILY:OUTLINE|none
 //
+// A "# shortfall:" line pins a check the original part itself fails in the
+// circuit; a case without one expects the original to pass every check it
+// can fail.
 // margins are pinned to ±0.01 and values to ±0.5 % (±0.01 near zero); the
 // hand calculation and the datasheet behind each number are in the file's
 // comments.
@@ -80,13 +84,16 @@ func TestSwapCases(t *testing.T) {
 			data, _ := os.ReadFile(name)
 			ev := load(t, c, name)
 			var spec string
-			var expects []string
+			var expects, shortfalls []string
 			for _, line := range strings.Split(string(data), "\n") {
 				if s, ok := strings.CutPrefix(line, "# original: "); ok {
 					spec = strings.TrimSpace(s)
 				}
 				if s, ok := strings.CutPrefix(line, "# expect: "); ok {
 					expects = append(expects, s)
+				}
+				if s, ok := strings.CutPrefix(line, "# shortfall: "); ok {
+					shortfalls = append(shortfalls, s)
 				}
 			}
 			if len(expects) == 0 {
@@ -99,6 +106,7 @@ func TestSwapCases(t *testing.T) {
 			for _, e := range expects {
 				expectOne(t, c, sres, strings.Fields(e), seen)
 			}
+			expectShortfalls(t, c, sres, shortfalls)
 		})
 	}
 	// Every check must be seen failing and passing somewhere (module: failing
@@ -176,8 +184,65 @@ func expectOne(t *testing.T, c *catalog.Catalog, sres *replace.Result, f []strin
 			if !strings.Contains(ch.Text, strings.ReplaceAll(v, "_", " ")) {
 				t.Errorf("%s: %s text %q lacks %q", f[0], check, ch.Text, v)
 			}
+		case "action":
+			if !strings.Contains(ch.Action, strings.ReplaceAll(v, "_", " ")) {
+				t.Errorf("%s: %s action %q lacks %q", f[0], check, ch.Action, v)
+			}
+		case "unit":
+			if ch.Unit != v {
+				t.Errorf("%s: %s unit %q, want %q", f[0], check, ch.Unit, v)
+			}
 		default:
 			t.Fatalf("unknown expectation %q", kv)
+		}
+	}
+}
+
+// expectShortfalls compares the original's own failing checks with the
+// case's "# shortfall:" lines.
+func expectShortfalls(t *testing.T, c *catalog.Catalog, sres *replace.Result, lines []string) {
+	t.Helper()
+	if len(sres.OriginalShortfalls) != len(lines) {
+		var got []string
+		for _, sf := range sres.OriginalShortfalls {
+			got = append(got, sf.Sentence(sres.Original.Label()))
+		}
+		t.Errorf("original's shortfalls: %q, want %d", got, len(lines))
+		return
+	}
+	for i, line := range lines {
+		f := strings.Fields(line)
+		sf := sres.OriginalShortfalls[i]
+		if string(sf.Check.Name) != f[0] {
+			t.Errorf("shortfall %d is %s, want %s", i, sf.Check.Name, f[0])
+		}
+		for _, kv := range f[1:] {
+			k, v, _ := strings.Cut(kv, "=")
+			switch k {
+			case "value", "limit":
+				x, _ := strconv.ParseFloat(v, 64)
+				p := sf.Check.Value
+				if k == "limit" {
+					p = sf.Check.Limit
+				}
+				if p == nil || math.Abs(*p-x) > math.Max(0.005*math.Abs(x), 0.01) {
+					t.Errorf("shortfall %s %s %v, want %s", f[0], k, fmtNum(p), v)
+				}
+			case "passed_by":
+				want := ""
+				if v != "none" {
+					h, err := infer.ParseVariant(c, v)
+					if err != nil {
+						t.Fatal(err)
+					}
+					want = h.Label()
+				}
+				if !strings.HasPrefix(sf.PassedBy, want) || (want == "" && sf.PassedBy != "") {
+					t.Errorf("shortfall %s passed by %q, want %q", f[0], sf.PassedBy, want)
+				}
+			default:
+				t.Fatalf("unknown shortfall expectation %q", kv)
+			}
 		}
 	}
 }
