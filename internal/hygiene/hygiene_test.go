@@ -76,13 +76,28 @@ func mustParseHeader(t *testing.T, path string, data []byte) *ast.File {
 	return f
 }
 
+// overLong lists the files still over the limit, each with who splits it.
+// It may only shrink: a listed file that has come under the limit fails the
+// test until its line is removed.
+var overLong = map[string]string{
+	// Both were being reworked by other branches when this test landed;
+	// splitting them here would have collided with that work.
+	"infer/next_asks.go":         "457 lines: split the asks by kind of evidence",
+	"infer/circuit/rectifier.go": "462 lines: move the corner sweep to its own file",
+}
+
 // TestFileLength: no hand-written Go file over 450 lines; generated files
 // and tests are exempt (RULES.md).
 func TestFileLength(t *testing.T) {
 	for _, files := range goFiles(t) {
 		for _, f := range files {
-			if !f.generated && f.lines > maxLines {
+			_, listed := overLong[f.path]
+			switch {
+			case f.generated:
+			case f.lines > maxLines && !listed:
 				t.Errorf("%s has %d lines; a hand-written file keeps to %d: split it by job", f.path, f.lines, maxLines)
+			case f.lines <= maxLines && listed:
+				t.Errorf("%s is down to %d lines: remove it from overLong", f.path, f.lines)
 			}
 		}
 	}
