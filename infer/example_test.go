@@ -48,4 +48,5 @@ amps = 0.5
 	fmt.Printf("worst trough %.3g V at %s\n", op.Trough.V, op.Trough.At)
 	// Output:
 	// source rectifier, nominal trough 12.5 V
+	// worst trough 10.6 V at low mains, full load, low C
 }
