@@ -164,6 +164,13 @@ var markingCases = []markingCase{
 	{"XC6206P332MR", "6206", []float64{3.3}, "SOT-23", "Torex XC6206: P, 33, accuracy 2, MR = SOT-23, from memory"},
 	{"MCP1700T-3302E/TT", "1700", []float64{3.3}, "SOT-23", "Microchip MCP1700: 33 = 3.3 V, 02 = ±2 %, TT = SOT-23, from memory"},
 	{"MCP1700-5002E/TO", "1700", []float64{5}, "TO-92", "Microchip MCP1700: TO = TO-92, from memory"},
+	// Five-lead parts: SOT-23-5 LDOs with enable and the L200.
+	{"LP2985-33DBVR", "2985", []float64{3.3}, "SOT-23-5", "TI LP2992/LP2985 series: DBV = SOT-23-5, 33 = 3.3 V (order code from memory)"},
+	{"LP2985IM5-5.0", "2985", []float64{5}, "SOT-23-5", "National LP2985: IM5 = SOT-23-5, from memory"},
+	{"MIC5205-3.3BM5", "5205", []float64{3.3}, "SOT-23-5", "Micrel MIC5205 M9999-020806 ordering table: MIC5205-3.3BM5, SOT-23-5"},
+	{"MIC5205-5.0YM5-TR", "5205", []float64{5}, "SOT-23-5", "Microchip MIC5205 DS20005785A: YM5 lead-free SOT-23-5, -TR reel (from memory)"},
+	{"AP2112K-3.3TRG1", "2112", []float64{3.3}, "SOT-23-5", "Diodes AP2112: K = SOT-23-5 as AP2127K-4.75TRG1 (DS36478); TR reel, G1 green, from memory"},
+	{"L200CV", "L200", nil, "TO-220-5", "ST L200: CV = Pentawatt (five-lead TO-220), from memory"},
 	// Date codes beside the number (practice §8).
 	{"LM317T 7812", "317", nil, "TO-220", "practice: 7812 = 1978 week 12, not a 12 V 78xx"},
 	{"LM7805CT 8523", "78xx", []float64{5}, "TO-220", "practice: 8523 = 1985 week 23"},

@@ -67,17 +67,13 @@ func termCurrent(sc *scene, h Hypothesis, v voltsView, r *reasons) {
 
 // termInputMax weighs the highest input the circuit presents against the
 // part's running limit ([catalog.Family.InputLimit]; start-up is
-// replacement's question).
+// replacement's question). With no [input] described, the part has
+// survived the reading on its input lead: a reading over the limit weighs
+// as a described input's peak would, while the bound taken from the reading
+// (high mains, light load, assumed ripple and transformer rise) is an
+// assumption and weighs at most mildly.
 func termInputMax(sc *scene, h Hypothesis, v voltsView, r *reasons) {
 	f := h.Family
-	inPeak := sc.input.Peak
-	if v.haveIn {
-		inPeak = sc.input.PeakFor(v.in)
-	}
-	peak, from := inPeak.V, inPeak.At
-	if peak <= 0 {
-		return
-	}
 	il := f.InputLimit(h.VoutV)
 	limit, what := il.RunV, il.What
 	if f.NonRegulator() {
@@ -89,17 +85,57 @@ func termInputMax(sc *scene, h Hypothesis, v voltsView, r *reasons) {
 	if limit <= 0 {
 		return
 	}
-	q := peak / limit
-	switch {
-	case q <= 1:
-		r.add("input_max", 0.9, 0.5, "input peak %.1f V (%s) within the %s %.0f V", peak, from, what, limit)
-	case q <= 1.05:
-		r.add("input_max", 0.3, 0.5, "input peak %.1f V (%s) just over the %s %.0f V", peak, from, what, limit)
-	case q <= 1.15:
-		r.add("input_max", 0.05, 0.5, "input peak %.1f V (%s) over the %s %.0f V", peak, from, what, limit)
-	default:
-		r.add("input_max", 0.01, 0.5, "input peak %.1f V (%s) far over the %s %.0f V", peak, from, what, limit)
+	if sc.input.Source == InputUnknown {
+		if !v.haveIn || v.in == 0 {
+			return
+		}
+		read, bound := math.Abs(v.in), sc.input.PeakFor(v.in).V
+		switch {
+		case read > limit:
+			r.add("input_max", overLimit(read/limit), 0.5, "input %.1f V measured, %s the %s %.0f V", read, overWords(read/limit), what, limit)
+		case bound > limit:
+			// The part has run on the reading; only the assumed rise
+			// (high mains, light load) takes it over.
+			r.add("input_max", 0.35, 0.5, "input peak %.1f V at most, a bound from the %.1f V reading at high mains and light load: over the %s %.0f V, but the part runs on the %.1f V measured, so the bound weighs lightly", bound, read, what, limit, read)
+		default:
+			r.add("input_max", 0.9, 0.5, "input peak %.1f V at most, a bound from the %.1f V reading at high mains and light load: within the %s %.0f V", bound, read, what, limit)
+		}
+		return
 	}
+	peak, from := sc.input.Peak.V, sc.input.Peak.At
+	if peak <= 0 {
+		return
+	}
+	q := peak / limit
+	if q <= 1 {
+		r.add("input_max", 0.9, 0.5, "input peak %.1f V (%s) within the %s %.0f V", peak, from, what, limit)
+		return
+	}
+	r.add("input_max", overLimit(q), 0.5, "input peak %.1f V (%s) %s the %s %.0f V", peak, from, overWords(q), what, limit)
+}
+
+// overLimit is the chance of an input q times the part's limit (q > 1):
+// a little over it parts often survive, far over it they do not (common
+// practice, no source).
+func overLimit(q float64) float64 {
+	switch {
+	case q <= 1.05:
+		return 0.3
+	case q <= 1.15:
+		return 0.05
+	}
+	return 0.01
+}
+
+// overWords says how far over its limit an input q times the limit is.
+func overWords(q float64) string {
+	switch {
+	case q <= 1.05:
+		return "just over"
+	case q <= 1.15:
+		return "over"
+	}
+	return "far over"
 }
 
 // termDivider weighs what the resistor network predicts for this part

@@ -3,6 +3,7 @@ package infer
 import (
 	"fmt"
 	"math"
+	"strings"
 
 	"github.com/whichreg/whichreg/catalog"
 )
@@ -88,21 +89,99 @@ func termPackage(sc *scene, h Hypothesis, _ voltsView, r *reasons) {
 	if ev.Package == "" || o == nil || sc.packageContradicted() {
 		return
 	}
-	// Outlines with the same lead count are confused now and then (a TO-220
-	// for its insulated form); a different lead count seldom.
-	named := sc.c.Outline(ev.Package)
-	switch {
-	case namesOutline(ev.Package, o):
-		r.add("package", 0.95, 1.0/12, "package %s named; this variant is %s", ev.Package, o.Name)
-	case named != nil && (named.Leads != o.Leads || named.SMD != o.SMD || named.MetalCan != o.MetalCan):
-		r.add("package", 0.001, 1.0/12, "package %s named, but this variant is %s: %s", ev.Package, o.Name, outlineDifference(named, o))
-	default:
-		r.add("package", 0.01, 1.0/12, "package %s named, but this variant is %s", ev.Package, o.Name)
+	if namesOutline(ev.Package, o) {
+		r.add("package", pNamedRight, pFlatPackage, "package %s named; this variant is %s", ev.Package, o.Name)
+		return
 	}
+	p, why := packageConfusion(ev.Package, sc.c.Outline(ev.Package), o)
+	r.add("package", p, pFlatPackage, "package %s named, but this variant is %s: %s", ev.Package, o.Name, why)
 }
 
-// outlineDifference says how two outlines differ at a glance.
-func outlineDifference(a, b *catalog.Outline) string {
+// The chances of a package name in the notes, given the part's outline
+// (judgement: common practice, no source). The name is right nearly
+// always; a slip between names a character apart (SOT-23 for SOT-223,
+// DPAK for D2PAK, TO-220 for TO-220FP) happens a few times in a hundred;
+// another outline of the same kind (TO-126 for TO-220) about once; an
+// outline that differs at a glance (surface-mount against through-hole, a
+// metal can against plastic, a tiny SOT-23 or TO-92 against a power
+// package) or in its lead count hardly ever.
+const (
+	pNamedRight   = 0.95
+	pNameSlip     = 0.03
+	pSameKind     = 0.01
+	pGlance       = 0.003
+	pOtherLeads   = 0.001
+	pFlatPackage  = 1.0 / 12 // about a dozen outlines a regulator comes in
+	tinyPitchMaxM = 2.0      // mm: a tiny outline's pitch is under this (SOT-23 0.95, TO-92 1.27)
+)
+
+// packageConfusion is the chance that a part of outline o is written down
+// as name (named is its catalog outline, nil when the catalog lacks it),
+// and why.
+func packageConfusion(name string, named, o *catalog.Outline) (float64, string) {
+	switch {
+	case named != nil && named.Leads != o.Leads:
+		return pOtherLeads, fmt.Sprintf("%d leads against %d", named.Leads, o.Leads)
+	case nameSlip(name, o):
+		return pNameSlip, "names a character apart, an easy slip"
+	case named == nil:
+		return pSameKind, "an outline the catalog does not know"
+	}
+	if d := glanceDifference(named, o); d != "" {
+		return pGlance, d
+	}
+	return pSameKind, "another outline of the same kind"
+}
+
+// nameSlip reports whether name is a character away from o's name or an
+// alias, or the same name with a letter suffix (TO-220FP for TO-220),
+// spaces and hyphens ignored: a slip of the pen, not of the eye.
+func nameSlip(name string, o *catalog.Outline) bool {
+	n := normName(name)
+	for _, x := range append([]string{o.Name}, o.Aliases...) {
+		x = normName(x)
+		if editDistanceAtMostOne(n, x) || letterSuffix(n, x) || letterSuffix(x, n) {
+			return true
+		}
+	}
+	return false
+}
+
+// letterSuffix reports whether long is short followed by letters only.
+func letterSuffix(long, short string) bool {
+	if len(long) <= len(short) || !strings.HasPrefix(long, short) {
+		return false
+	}
+	return strings.Trim(long[len(short):], "ABCDEFGHIJKLMNOPQRSTUVWXYZ") == ""
+}
+
+func normName(s string) string {
+	return strings.ToUpper(strings.NewReplacer("-", "", " ", "").Replace(s))
+}
+
+// editDistanceAtMostOne reports whether a and b differ by at most one
+// inserted, deleted or replaced character.
+func editDistanceAtMostOne(a, b string) bool {
+	if len(a) > len(b) {
+		a, b = b, a
+	}
+	if len(b)-len(a) > 1 {
+		return false
+	}
+	i := 0
+	for i < len(a) && a[i] == b[i] {
+		i++
+	}
+	if len(a) == len(b) {
+		return a[i+min(1, len(a)-i):] == b[i+min(1, len(b)-i):]
+	}
+	return a[i:] == b[i+1:]
+}
+
+// glanceDifference says how two outlines with the same lead count differ
+// at a glance ("" when they do not): surface-mount against through-hole, a
+// metal can against plastic, a tiny body against a power package.
+func glanceDifference(a, b *catalog.Outline) string {
 	kind := func(o *catalog.Outline) string {
 		switch {
 		case o.MetalCan:
@@ -112,10 +191,20 @@ func outlineDifference(a, b *catalog.Outline) string {
 		}
 		return "through-hole"
 	}
-	if a.Leads != b.Leads {
-		return fmt.Sprintf("%d leads against %d", a.Leads, b.Leads)
+	if ka, kb := kind(a), kind(b); ka != kb {
+		return ka + " against " + kb
 	}
-	return kind(a) + " against " + kind(b)
+	tiny := func(o *catalog.Outline) bool {
+		return !o.Tab && !o.MetalCan && o.PitchMM > 0 && o.PitchMM < tinyPitchMaxM
+	}
+	power := func(o *catalog.Outline) bool {
+		return o.MetalCan || (o.PitchMM >= tinyPitchMaxM && (o.Tab || o.Isolated || o.MountingHole))
+	}
+	switch {
+	case tiny(a) && power(b), power(a) && tiny(b):
+		return "a tiny body against a power package"
+	}
+	return ""
 }
 
 // packageContradicted reports whether the named package's lead count
