@@ -171,6 +171,11 @@ var markingCases = []markingCase{
 	{"MIC5205-5.0YM5-TR", "5205", []float64{5}, "SOT-23-5", "Microchip MIC5205 DS20005785A: YM5 lead-free SOT-23-5, -TR reel (from memory)"},
 	{"AP2112K-3.3TRG1", "2112", []float64{3.3}, "SOT-23-5", "Diodes AP2112: K = SOT-23-5 as AP2127K-4.75TRG1 (DS36478); TR reel, G1 green, from memory"},
 	{"L200CV", "L200", nil, "TO-220-5", "ST L200: CV = Pentawatt (five-lead TO-220), from memory"},
+	{"LM345K-5.0", "345", []float64{5}, "TO-3", "National LM145/LM345 TL/H/7785: LM345K-5.0"},
+	{"LM333K", "333", nil, "TO-3", "National LM133/LM333 DS009065: LM333K STEEL"},
+	{"LM333T", "333", nil, "TO-220", "National LM133/LM333 DS009065: LM333T"},
+	{"LM2930T-5.0", "2930", []float64{5}, "TO-220", "National LM2930 DS005539: LM2930T-5.0"},
+	{"LM2930S-8.0", "2930", []float64{8}, "D2PAK", "National LM2930 DS005539: LM2930S-8.0 (TO-263)"},
 	// Date codes beside the number (practice §8).
 	{"LM317T 7812", "317", nil, "TO-220", "practice: 7812 = 1978 week 12, not a 12 V 78xx"},
 	{"LM7805CT 8523", "78xx", []float64{5}, "TO-220", "practice: 8523 = 1985 week 23"},
