@@ -37,6 +37,7 @@ type Level struct {
 // corners, and the load, each with where it comes from. Every figure is a
 // magnitude; a negative rail's sign is the family's (see the polarity).
 type Operating struct {
+	// Source says where the input figures come from.
 	Source InputSource `json:"source"`
 	// LoadMaxA is the full load every check uses; LoadAssumed says it was
 	// not given and names the assumption in Assumptions.
@@ -73,9 +74,9 @@ type Operating struct {
 
 // Levels are peak, trough and mean input at one condition, volts (magnitudes).
 type Levels struct {
-	PeakV   float64 `json:"peak_v"`
-	TroughV float64 `json:"trough_v"`
-	MeanV   float64 `json:"mean_v"`
+	PeakV   float64 `json:"peak_v"`   // the crest of the ripple
+	TroughV float64 `json:"trough_v"` // the lowest point of the ripple
+	MeanV   float64 `json:"mean_v"`   // the average
 }
 
 // Sweep says how much of the rectifier model to solve.

@@ -171,31 +171,17 @@ func writeRecordJSON(w io.Writer, rec record.Record) error {
 		}
 		ident = append(ident, cd)
 	}
-	o := rec.Original
-	orig := recordOriginalDoc{Family: o.Family, Outline: o.Package, VoutV: o.VoutV, Probability: o.Probability, Named: o.Named}
 	doc := struct {
 		Schema string `json:"schema"`
 		record.Record
-		Identification []inferCandDoc    `json:"identification"`
-		Original       recordOriginalDoc `json:"original"`
-		Chosen         chosenDoc         `json:"chosen"`
-		Conditions     conditionsDoc     `json:"conditions"`
-	}{report.Schema("record"), rec, ident, orig, chosen, conditionsDocOf(rec.Conditions)}
+		Identification []inferCandDoc `json:"identification"`
+		Chosen         chosenDoc      `json:"chosen"`
+		Conditions     conditionsDoc  `json:"conditions"`
+	}{report.Schema("record"), rec, ident, chosen, conditionsDocOf(rec.Conditions)}
 	enc := json.NewEncoder(w)
 	enc.SetIndent("", "  ")
 	enc.SetEscapeHTML(false)
 	return enc.Encode(doc)
-}
-
-// recordOriginalDoc is the part replaced, in the record's JSON.
-type recordOriginalDoc struct {
-	Family      string   `json:"family"`
-	Outline     string   `json:"outline"`
-	VoutV       *float64 `json:"vout_v"`
-	Probability float64  `json:"probability"`
-	// Named is true when the technician named it (--original) rather than
-	// taking identification's leader.
-	Named bool `json:"named"`
 }
 
 // chosenDoc is the chosen replacement in the record's JSON.

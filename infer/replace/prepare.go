@@ -76,18 +76,18 @@ func (n *Network) Lift(vnomV, iA float64) float64 {
 
 // Cap is the board's output capacitor as the evidence gives it.
 type Cap struct {
-	UF     float64 // microfarads; meaningful when UFSet
-	UFSet  bool
+	UF     float64       // microfarads; meaningful when UFSet
+	UFSet  bool          // the evidence gives a capacitance
 	Type   infer.CapType // "" when not given
 	Silent bool          // nothing at all is said about it
 }
 
 // Input is everything the checks read: prepared once per swap.
 type Input struct {
-	Ev   *infer.Evidence
-	Orig infer.Original
-	Op   infer.Operating
-	Cond Conditions
+	Ev   *infer.Evidence // the evidence as loaded
+	Orig infer.Original  // the part being replaced
+	Op   infer.Operating // the input and load at every corner
+	Cond Conditions      // the conditions every candidate is checked under
 	// Network is the original's common-lead network (nil when none).
 	Network *Network
 	// Lifted is true when a fixed original sits on a common-lead network.
