@@ -205,7 +205,7 @@ func TestBadCatalogs(t *testing.T) {
 			if got == "" {
 				t.Fatalf("%s lints clean; it should not", name)
 			}
-			golden.Check(t, strings.TrimSuffix(name, ".toml")+".golden", got, *update)
+			golden.Check(t, strings.TrimSuffix(name, ".toml")+".golden", got, golden.Update(*update))
 		})
 	}
 }
@@ -365,5 +365,5 @@ func TestDrawings(t *testing.T) {
 			fmt.Fprintf(&b, "== %s %s\n%s", f.ID, p.Label(), catalog.Drawing(c.Outline(p.Outline), p))
 		}
 	}
-	golden.Check(t, "../testdata/catalog/drawings.golden", b.String(), *update)
+	golden.Check(t, "../testdata/catalog/drawings.golden", b.String(), golden.Update(*update))
 }

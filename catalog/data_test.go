@@ -42,6 +42,16 @@ func TestVariantPinouts(t *testing.T) {
 		{"2950", "TO-92", "", []string{"OUT", "GND", "IN"}, "none", "National LP2950 TO-92: 1 OUTPUT, 2 GND, 3 INPUT (from memory)"},
 		{"1700", "TO-92", "", []string{"GND", "IN", "OUT"}, "none", "Microchip MCP1700 TO-92: 1 GND, 2 VIN, 3 VOUT (from memory)"},
 		{"6206", "SOT-23", "", []string{"GND", "OUT", "IN"}, "none", "Torex XC6206 SOT-23: 1 VSS, 2 VOUT, 3 VIN (from memory)"},
+		{"2985", "SOT-23-5", "", []string{"IN", "GND", "EN", "BYP", "OUT"}, "none", "TI LP2992 JAJSS37K pin table, the LP2985's series: VIN 1, GND 2, ON/OFF 3, BYPASS 4, VOUT 5"},
+		{"5205", "SOT-23-5", "", []string{"IN", "GND", "EN", "BYP", "OUT"}, "none", "Micrel MIC5205 M9999-020806: 'connect EN (pin 3) to IN (supply input, pin 1)'; typical application GND 2, BYP 4, OUT 5"},
+		{"2112", "SOT-23-5", "", []string{"IN", "GND", "EN", "NC", "OUT"}, "none", "Diodes AP2127 DS36478 Rev. 7-2 SOT-23-5: VIN 1, GND 2, shutdown 3, NC/ADJ 4, VOUT 5 (the AP2112's own table from memory)"},
+		{"L200", "TO-220-5", "", []string{"IN", "SENSE", "GND", "ADJ", "OUT"}, "GND", "ST L200 Pentawatt: 1 input, 2 current limiting, 3 ground, 4 reference, 5 output (from memory)"},
+		{"345", "TO-3", "", []string{"GND", "OUT"}, "IN", "National LM145/LM345 TL/H/7785: TO-3 only; lead positions and the can as the LM320K (from memory)"},
+		{"333", "TO-220", "", []string{"ADJ", "IN", "OUT"}, "IN", "National LM333T (DS009065 front view); the 337's order, from memory"},
+		{"333", "TO-3", "", []string{"ADJ", "OUT"}, "IN", "National LM333K STEEL (DS009065 bottom view); the 337's leads, from memory"},
+		{"2930", "TO-220", "", []string{"IN", "GND", "OUT"}, "GND", "National LM2930T (DS005539 front view); lead order from memory"},
+		{"1083", "TO-220", "", []string{"ADJ", "OUT", "IN"}, "OUT", "Linear Technology LT1083/84/85: 'pin compatible with older 3-terminal regulators'; case connected to the output"},
+		{"320", "TO-39", "", []string{"GND", "OUT", "IN"}, "IN", "LM320H lead order as the 337's TO-39 (SGS-Thomson LM137 1993: 1 ADJ, 2 OUT, 3 IN), from memory"},
 	}
 	for _, tt := range tests {
 		t.Run(tt.family+"/"+tt.outline+"/"+tt.variant, func(t *testing.T) {
@@ -102,6 +112,17 @@ func TestCorrectedFigures(t *testing.T) {
 		{"npn-darlington", "control_drop_v high", func(f *catalog.Family) float64 { return f.ControlDropV[1] }, 2.5, "ST TIP120: VBE(on) 2.5 V max at IC 3 A"},
 		{"npn-darlington", "vin_max_v", func(f *catalog.Family) float64 { return f.VinMaxV }, 60, "onsemi TIP120/D: VCEO 60 V"},
 		{"nmos-power", "control_drop_v low", func(f *catalog.Family) float64 { return f.ControlDropV[0] }, 2.0, "IRF540N: VGS(th) 2.0-4.0 V"},
+		{"5205", "cout.esr_max_ohm", func(f *catalog.Family) float64 { return f.Cout.ESRMaxOhm }, 5, "Micrel MIC5205: output capacitor ESR 'about 5 ohm or less'"},
+		{"5205", "cout.min_uf", func(f *catalog.Family) float64 { return f.Cout.MinUF }, 2.2, "Micrel MIC5205: 2.2 uF minimum with the 470 pF bypass capacitor"},
+		{"5205", "current_a", func(f *catalog.Family) float64 { return f.CurrentA }, 0.15, "Micrel MIC5205: guaranteed 150 mA output"},
+		{"345", "vin_max_v", func(f *catalog.Family) float64 { return f.VinMaxV }, 20, "National LM145/LM345 TL/H/7785: input voltage 20 V absolute maximum"},
+		{"345", "dropout_v", func(f *catalog.Family) float64 { return f.DropoutV }, 2.8, "National LM345: 'input-output differential of 2.8 V at full rated load over full temperature range'"},
+		{"345", "iq_ma", func(f *catalog.Family) float64 { return f.IqMA }, 3.0, "National LM345: quiescent current 1.0 typ / 3.0 max mA"},
+		{"333", "vdiff_max_v", func(f *catalog.Family) float64 { return f.VdiffMaxV }, 35, "National LM133/LM333 DS009065: input-output voltage differential 35 V"},
+		{"2930", "dropout_v", func(f *catalog.Family) float64 { return f.DropoutV }, 0.6, "National LM2930 DS005539: dropout 0.6 V max at 150 mA"},
+		{"2930", "vin_max_v", func(f *catalog.Family) float64 { return f.VinMaxV }, 26, "National LM2930 DS005539: input voltage operating range 26 V"},
+		{"1083", "current_a", func(f *catalog.Family) float64 { return f.CurrentA }, 7.5, "Linear Technology LT1083: 7.5 A"},
+		{"1083", "dropout_v", func(f *catalog.Family) float64 { return f.DropoutV }, 1.5, "Linear Technology LT1083: dropout 1.5 V max at maximum output current"},
 		{"buck-5lead", "vref_v", func(f *catalog.Family) float64 { return f.VrefV }, 1.23, "TI LM2596: 1.23 V feedback reference"},
 	}
 	for _, tt := range num {

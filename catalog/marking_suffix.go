@@ -47,6 +47,11 @@ var packageCodes = []packageCode{
 	{"PK", "SOT-89", []string{"UA"}, "TI µA78L00: PK = SOT-89, from memory", anywhere},
 	{"FP", "TO-220FP", nil, "fully moulded TO-220 (FP), from memory", anywhere},
 	{"FA", "TO-220FP", []string{"NJM"}, "JRC NJM78xx FA = TO-220F, from memory", anywhere},
+	{"DBV", "SOT-23-5", []string{"LP", "TLV", "TPS", "LM"}, "TI LP2992 / LP2980-ADJ pin tables: DBV = SOT-23-5 (LP2985-33DBVR)", anywhere},
+	{"YM5", "SOT-23-5", []string{"MIC"}, "Micrel/Microchip MIC5205: YM5 = SOT-23-5, lead-free (MIC5205-3.3YM5-TR), from memory", anywhere},
+	{"BM5", "SOT-23-5", []string{"MIC"}, "Micrel MIC5205 (2006) ordering table: BM5 = SOT-23-5 (MIC5205-3.3BM5)", anywhere},
+	{"M5", "SOT-23-5", []string{"LP", "LM"}, "National LP2985IM5-3.3: M5 = SOT-23-5, from memory", anywhere},
+	{"K", "SOT-23-5", []string{"AP"}, "Diodes AP2127K-4.75TRG1 (DS36478): K = SOT-23-5", anywhere},
 	{"MR", "SOT-23", []string{"XC"}, "Torex XC6206 MR = SOT-23, from memory", anywhere},
 	{"PR", "SOT-89", []string{"XC"}, "Torex XC6206 PR = SOT-89, from memory", anywhere},
 	{"TT", "SOT-23", []string{"MCP"}, "Microchip MCP1700 TT = SOT-23, from memory", anywhere},
@@ -95,12 +100,14 @@ type trailer struct {
 // tape), E3 (finish); Torex XC6206
 // P (positive fixed type) and the accuracy digit after the voltage code;
 // Microchip MCP1700 T (tape), the 0x tolerance code and the E/I
-// temperature letter. The maker-specific rows are from memory.
+// temperature letter; Diodes AP2112 G1 (green, lead-free: AP2112K-3.3TRG1).
+// The maker-specific rows are from memory.
 var trailers = []trailer{
 	{"NOPB", nil}, {"PBF", nil}, {"TR", nil}, {"R4", nil}, {"T4", nil}, {"T3", nil}, {"T1", nil},
 	{"RK", nil}, {"R2", nil}, {"TA", nil}, {"TRL", nil}, {"TRR", nil},
 	{"E3", nil}, {"G", nil}, {"X", nil}, {"R", nil},
 	{"P", []string{"XC"}}, {"1", []string{"XC"}}, {"2", []string{"XC"}},
+	{"G1", []string{"AP"}},
 	{"T", []string{"MCP"}}, {"01", []string{"MCP"}}, {"02", []string{"MCP"}}, {"E", []string{"MCP"}}, {"I", []string{"MCP"}},
 }
 

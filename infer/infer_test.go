@@ -143,7 +143,7 @@ func TestScenarios(t *testing.T) {
 				g.Next = append(g.Next, fmt.Sprintf("%s (%.2f bits)", m.Measure, m.GainBits))
 			}
 			got, _ := json.MarshalIndent(g, "", "  ")
-			golden.Check(t, strings.TrimSuffix(name, ".toml")+".golden.json", string(got)+"\n", *update)
+			golden.Check(t, strings.TrimSuffix(name, ".toml")+".golden.json", string(got)+"\n", golden.Update(*update))
 		})
 	}
 }
@@ -252,7 +252,7 @@ func TestBadEvidence(t *testing.T) {
 			if !strings.HasPrefix(got, rel+":") {
 				t.Errorf("message does not start with file:line: %q", got)
 			}
-			golden.Check(t, strings.TrimSuffix(name, ".toml")+".golden", got, *update)
+			golden.Check(t, strings.TrimSuffix(name, ".toml")+".golden", got, golden.Update(*update))
 		})
 	}
 }

@@ -59,33 +59,33 @@ func Guard(chosen *replace.Replacement, override string) error {
 
 // Candidate is one identification candidate in the record.
 type Candidate struct {
-	Family      string         `json:"family"`
-	Package     string         `json:"package"`
-	VoutV       *float64       `json:"vout_v"` // signed; null when unknown
-	Probability float64        `json:"probability"`
-	Score       float64        `json:"score"`
-	Reasons     []infer.Reason `json:"reasons"`
+	Family      string         `json:"family"`      // the catalog family id
+	Package     string         `json:"outline"`     // the outline name (TO-220)
+	VoutV       *float64       `json:"vout_v"`      // signed; null when unknown
+	Probability float64        `json:"probability"` // posterior, 0…1
+	Score       float64        `json:"score"`       // the sum of the reasons' weights (natural log)
+	Reasons     []infer.Reason `json:"reasons"`     // why, one per piece of evidence
 }
 
 // Original is the part replaced.
 type Original struct {
-	Family      string   `json:"family"`
-	Package     string   `json:"package"`
-	VoutV       *float64 `json:"vout_v"` // signed
-	Probability float64  `json:"probability"`
-	Named       bool     `json:"named"` // named by the technician rather than identification's leader
+	Family      string   `json:"family"`      // the catalog family id
+	Package     string   `json:"outline"`     // the outline name (TO-220)
+	VoutV       *float64 `json:"vout_v"`      // signed
+	Probability float64  `json:"probability"` // identification's posterior, 0…1
+	Named       bool     `json:"named"`       // named by the technician rather than identification's leader
 }
 
 // Chosen is the chosen replacement with its checks.
 type Chosen struct {
-	Family      string          `json:"family"`
-	Package     string          `json:"package"`
-	VoutV       *float64        `json:"vout_v"` // signed
-	Verdict     replace.Verdict `json:"verdict"`
-	Deciding    string          `json:"deciding"`
-	Summary     string          `json:"summary"`
-	Checks      []replace.Check `json:"checks"`
-	Install     []string        `json:"install"`
+	Family      string          `json:"family"`       // the catalog family id
+	Package     string          `json:"outline"`      // the outline name (TO-220)
+	VoutV       *float64        `json:"vout_v"`       // signed
+	Verdict     replace.Verdict `json:"verdict"`      // drop-in, needs work or unsuitable
+	Deciding    string          `json:"deciding"`     // the check that set the verdict
+	Summary     string          `json:"summary"`      // the verdict in one sentence
+	Checks      []replace.Check `json:"checks"`       // every check that applies, in order
+	Install     []string        `json:"install"`      // fitting instructions, as sentences
 	OrderCodes  []string        `json:"order_codes"`  // examples of current order codes
 	LeadMap     []replace.Link  `json:"lead_map"`     // new terminal → old pad
 	Rewire      bool            `json:"rewire"`       // the leads do not go straight into the old holes
@@ -94,48 +94,48 @@ type Chosen struct {
 
 // RunnerUp is a candidate that was not chosen, and why.
 type RunnerUp struct {
-	Candidate string          `json:"candidate"`
-	Verdict   replace.Verdict `json:"verdict"`
-	WhyNot    string          `json:"why_not"`
+	Candidate string          `json:"candidate"` // family, outline and output, as a label
+	Verdict   replace.Verdict `json:"verdict"`   // its own verdict
+	WhyNot    string          `json:"why_not"`   // why it was not the choice
 }
 
 // Record is everything a substitution record holds.
 type Record struct {
-	Title          string             `json:"title"`
-	Ref            string             `json:"ref"`
-	Equipment      string             `json:"equipment"`
-	Date           string             `json:"date"`
-	Tool           string             `json:"tool"`
-	CatalogSHA256  string             `json:"catalog_sha256"`
-	EvidenceFile   string             `json:"evidence_file"`
+	Title          string             `json:"title"`              // the record's heading
+	Ref            string             `json:"ref"`                // board reference from the evidence
+	Equipment      string             `json:"equipment"`          // the equipment from the evidence
+	Date           string             `json:"date"`               // when the record was made, YYYY-MM-DD
+	Tool           string             `json:"tool"`               // "whichreg VERSION"
+	CatalogSHA256  string             `json:"catalog_sha256"`     // the catalog's content hash
+	EvidenceFile   string             `json:"evidence_file"`      // the evidence file's name as given
 	Override       string             `json:"override,omitempty"` // the reason an unsuitable choice was recorded anyway
 	Warnings       []string           `json:"warnings"`           // low confidence and the like
 	BenchNotes     []string           `json:"bench_notes"`        // the evidence file's comments
-	Evidence       *infer.Evidence    `json:"evidence"`
-	Identification []Candidate        `json:"identification"`
-	NotInCatalog   float64            `json:"not_in_catalog"`
-	Conflicts      []string           `json:"conflicts"`
-	Original       Original           `json:"original"`
-	Chosen         Chosen             `json:"chosen"`
-	RunnersUp      []RunnerUp         `json:"runners_up"`
-	Conditions     replace.Conditions `json:"conditions"`
-	Assumptions    []string           `json:"assumptions"`
-	Safety         []string           `json:"safety"`
-	SignOff        map[string]string  `json:"sign_off"`
+	Evidence       *infer.Evidence    `json:"evidence"`           // the measurements the decision rests on
+	Identification []Candidate        `json:"identification"`     // the leading candidates
+	NotInCatalog   float64            `json:"not_in_catalog"`     // probability that the part is none of the catalog's
+	Conflicts      []string           `json:"conflicts"`          // evidence that contradicts itself
+	Original       Original           `json:"original"`           // the part replaced
+	Chosen         Chosen             `json:"chosen"`             // the replacement fitted
+	RunnersUp      []RunnerUp         `json:"runners_up"`         // other candidates and why not
+	Conditions     replace.Conditions `json:"conditions"`         // the circuit conditions checked against
+	Assumptions    []string           `json:"assumptions"`        // what was taken where the evidence was silent
+	Safety         []string           `json:"safety"`             // the usual cautions
+	SignOff        map[string]string  `json:"sign_off"`           // blanks for the technician: who fitted and verified it, when, what was measured
 	negative       bool               // the rail is negative (for the Markdown)
 }
 
 // Input is what [Build] needs.
 type Input struct {
-	Catalog        *catalog.Catalog
-	Evidence       *infer.Evidence
-	EvidenceSource []byte // the evidence file as written (for its comments); may be nil
-	Identification *infer.Result
-	Swap           *replace.Result
+	Catalog        *catalog.Catalog     // the merged catalog (its hash goes in the record)
+	Evidence       *infer.Evidence      // the loaded evidence
+	EvidenceSource []byte               // the evidence file as written (for its comments); may be nil
+	Identification *infer.Result        // from [infer.Identify]
+	Swap           *replace.Result      // from [replace.Swap]
 	Chosen         *replace.Replacement // one of Swap.Replacements
 	Override       string               // reason for recording an unsuitable choice
-	Date           time.Time
-	Tool           string // "whichreg VERSION"
+	Date           time.Time            // the record's date
+	Tool           string               // "whichreg VERSION"
 }
 
 // Build assembles the record.
@@ -154,6 +154,12 @@ func Build(in Input) Record {
 	rec.Original = Original{o.Family.ID, o.Package.Outline, signedVout(o.Hypothesis), round(o.Probability, 6), o.Named}
 	if !o.Named && o.Probability < LowConfidence {
 		rec.Warnings = append(rec.Warnings, fmt.Sprintf("the original %s is identification's leader at only %.0f %%: make the suggested measurements, or name it with --original", o.Label(), 100*o.Probability))
+	}
+	if c := sres.Conditions.InputConflict; c != "" {
+		rec.Warnings = append(rec.Warnings, c)
+	}
+	for _, sf := range sres.OriginalShortfalls {
+		rec.Warnings = append(rec.Warnings, sf.Sentence(o.Label()))
 	}
 	if ch.Verdict == replace.Unsuitable {
 		rec.Warnings = append(rec.Warnings, fmt.Sprintf("%s is unsuitable here and was recorded on the technician's override: %s", ch.Label(), rec.Override))
@@ -239,20 +245,48 @@ func RunnersUp(sres *replace.Result, chosen *replace.Replacement, n int) []Runne
 // template's lines), which are not bench notes.
 var keyComment = regexp.MustCompile(`^\s*#\s*(\[[^\]]*\]|[A-Za-z0-9_."]+\s*=)`)
 
+// annotation matches the project's own machine annotations of its scenario
+// files, "# want: 78xx TO-220 5", "# expect: LFxx:TO-220 needs-work
+// cout=work", "# original: 337:TO-220", "# shortfall: dropout value=1.2",
+// which are test expectations, not bench notes: the word and a colon at the
+// start of the line, then a catalog id (with an optional :OUTLINE:VOUT)
+// alone, or followed by an outline name, an output voltage, a verdict or a
+// key=value. A note
+// in words ("# expect: hum at low mains") does not match and is kept.
+var annotation = regexp.MustCompile(`^#\s*(want|expect|original|shortfall):\s*[0-9A-Za-z]+(-[0-9A-Za-z]+)*(:\S+)?(\s*$|\s+([A-Z][A-Z0-9]*-?[0-9][A-Z0-9-]*|[0-9.]+|drop-in|needs-work|unsuitable|\S+=\S*)(\s|$))`)
+
+// labelled matches a comment line that starts a note of its own with a
+// label ("fuse: …", "expect: …") rather than going on with the one above.
+var labelled = regexp.MustCompile(`^[A-Za-z][\w-]*:\s`)
+
 // BenchNotes returns the comments of an evidence file as the technician
-// wrote them: whole-line comments (less commented-out keys and tables) and
-// the comments after values, prefixed with their key.
+// wrote them: whole-line comments, consecutive lines joined into one note
+// (less commented-out keys and tables, and
+// less the test annotations [annotation] matches) and the comments after
+// values, prefixed with their key.
 func BenchNotes(src []byte) []string {
 	var notes []string
 	table := ""
+	para := false // the last note is a whole-line comment that may go on
 	for _, line := range strings.Split(string(src), "\n") {
 		t := strings.TrimSpace(line)
+		if !strings.HasPrefix(t, "#") || keyComment.MatchString(t) || annotation.MatchString(t) {
+			para = false
+		}
 		switch {
-		case t == "" || keyComment.MatchString(t):
+		case t == "" || keyComment.MatchString(t) || annotation.MatchString(t):
 		case strings.HasPrefix(t, "#"):
-			if s := strings.TrimSpace(strings.TrimLeft(t, "#")); s != "" {
+			s := strings.TrimSpace(strings.TrimLeft(t, "#"))
+			switch {
+			case s == "":
+				para = false
+			case para && len(notes) > 0 && !labelled.MatchString(s):
+				notes[len(notes)-1] += " " + s // a paragraph written over several lines
+			default:
 				notes = append(notes, s)
+				para = true
 			}
+			continue
 		case strings.HasPrefix(t, "["):
 			table = strings.Trim(strings.SplitN(t, "#", 2)[0], " []")
 		default:

@@ -19,10 +19,10 @@ func WriteJSON(w io.Writer, v any) error {
 	return enc.Encode(v)
 }
 
-// Known returns a pointer to x, or nil (JSON null: unknown) when known is
-// false or x is not finite.
-func Known(x float64, known bool) *float64 {
-	if !known || math.IsNaN(x) || math.IsInf(x, 0) {
+// NonZero returns a pointer to x, or nil (JSON null: unknown) when x is
+// zero (the zero value of a figure not given) or not finite.
+func NonZero(x float64) *float64 {
+	if x == 0 || math.IsNaN(x) || math.IsInf(x, 0) {
 		return nil
 	}
 	return &x

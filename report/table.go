@@ -36,7 +36,7 @@ type Column struct {
 // themselves, then Under columns move beneath their rows, and as a last
 // resort every row is written as "header: value" lines.
 type Table struct {
-	Columns []Column
+	Columns []Column // the columns, left to right
 	rows    [][]string
 }
 

@@ -18,16 +18,16 @@ import (
 
 // IOStreams are the streams a command reads and writes.
 type IOStreams struct {
-	In     io.Reader
-	Out    io.Writer
-	ErrOut io.Writer
+	In     io.Reader // standard input (evidence given as -)
+	Out    io.Writer // results
+	ErrOut io.Writer // diagnostics, warnings and prompts
 }
 
 // App is what every command shares: streams, catalog sources, the output
 // width and the clock.
 type App struct {
-	IO           *IOStreams
-	CatalogFiles []string
+	IO           *IOStreams // where every command reads and writes
+	CatalogFiles []string   // user catalog files from --catalog, in order
 	// NoUserCatalog leaves out the configuration directory's catalog files
 	// (--no-user-catalog); --catalog files are still read.
 	NoUserCatalog bool

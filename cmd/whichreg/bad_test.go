@@ -70,7 +70,7 @@ func checkGolden(t *testing.T, args []string, goldenPath string) {
 			t.Errorf("output contains %q:\n%s", bad, got)
 		}
 	}
-	golden.Check(t, goldenPath, got, *updateScripts)
+	golden.Check(t, goldenPath, got, golden.Update(*updateScripts))
 }
 
 // FuzzCalcFlags runs the calculators with arbitrary flag values: every run

@@ -88,7 +88,11 @@ func calcHeatsinkRun(o *calcHeatsinkOptions) error {
 	cs := o.ThetaCS
 	if !o.csSet {
 		var err error
-		if cs, err = circuit.CaseToSink(o.Insulator, o.LargeCan); err != nil {
+		size := circuit.SmallTab
+		if o.LargeCan {
+			size = circuit.LargeCan
+		}
+		if cs, err = circuit.CaseToSink(o.Insulator, size); err != nil {
 			return inputError(err)
 		}
 	}

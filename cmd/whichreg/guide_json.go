@@ -67,7 +67,7 @@ func askJSON(q guide.Question) guideAskJSON {
 }
 
 func leaderJSON(l guide.Leader) guideLeaderJSON {
-	return guideLeaderJSON{l.Family, l.Package, report.Known(l.VoutV, l.VoutV != 0), round(l.Probability, 6), l.Device}
+	return guideLeaderJSON{l.Family, l.Package, report.NonZero(l.VoutV), round(l.Probability, 6), l.Device}
 }
 
 func (j *jsonGuide) object(st guide.Step, last *guide.Reply) guideJSON {

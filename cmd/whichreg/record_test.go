@@ -42,7 +42,7 @@ func TestRecordGolden(t *testing.T) {
 			}
 			// The evidence path is relative to this package; keep the golden repository-relative.
 			got := strings.ReplaceAll(out.String(), "../../testdata/", "testdata/")
-			golden.Check(t, filepath.Join("../../testdata/demo", tc.golden), got, *updateScripts)
+			golden.Check(t, filepath.Join("../../testdata/demo", tc.golden), got, golden.Update(*updateScripts))
 		})
 	}
 }

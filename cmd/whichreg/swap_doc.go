@@ -90,6 +90,9 @@ type conditionsDoc struct {
 	BypassOhm   *float64    `json:"bypass_ohm"`
 	OldTabV     *float64    `json:"old_tab_v"`
 	Corners     *cornersDoc `json:"corners"`
+	// InputConflict says why the [input] description was set aside for the
+	// IN lead's reading; null when they agree.
+	InputConflict *string `json:"input_conflict"`
 }
 
 // signedV returns a hypothesis's output voltage, signed, or nil when unknown.
@@ -113,7 +116,7 @@ func conditionsDocOf(c replace.Conditions) conditionsDoc {
 		InputSource: string(c.Source), TroughV: s(c.TroughV), TroughAt: c.TroughAt, PeakV: s(c.PeakV), PeakAt: c.PeakAt,
 		HotInV: s(c.HotInV), ColdInV: s(c.ColdInV), TransientV: positive(c.TransientV, 1), AmbientC: c.AmbientC,
 		HeatsinkCPW: positive(c.HeatsinkCW, 1), Insulator: c.Insulator, Grounded: c.Grounded, BypassOhm: positive(c.BypassOhm, 1),
-		OldTabV: sigPtr(c.OldTabV), Corners: cornersDocOf(c.Corners)}
+		OldTabV: sigPtr(c.OldTabV), Corners: cornersDocOf(c.Corners), InputConflict: orNull(c.InputConflict)}
 }
 
 func swapDocOf(res *replace.Result) swapDoc {
@@ -168,31 +171,17 @@ func writeRecordJSON(w io.Writer, rec record.Record) error {
 		}
 		ident = append(ident, cd)
 	}
-	o := rec.Original
-	orig := recordOriginalDoc{Family: o.Family, Outline: o.Package, VoutV: o.VoutV, Probability: o.Probability, Named: o.Named}
 	doc := struct {
 		Schema string `json:"schema"`
 		record.Record
-		Identification []inferCandDoc    `json:"identification"`
-		Original       recordOriginalDoc `json:"original"`
-		Chosen         chosenDoc         `json:"chosen"`
-		Conditions     conditionsDoc     `json:"conditions"`
-	}{report.Schema("record"), rec, ident, orig, chosen, conditionsDocOf(rec.Conditions)}
+		Identification []inferCandDoc `json:"identification"`
+		Chosen         chosenDoc      `json:"chosen"`
+		Conditions     conditionsDoc  `json:"conditions"`
+	}{report.Schema("record"), rec, ident, chosen, conditionsDocOf(rec.Conditions)}
 	enc := json.NewEncoder(w)
 	enc.SetIndent("", "  ")
 	enc.SetEscapeHTML(false)
 	return enc.Encode(doc)
-}
-
-// recordOriginalDoc is the part replaced, in the record's JSON.
-type recordOriginalDoc struct {
-	Family      string   `json:"family"`
-	Outline     string   `json:"outline"`
-	VoutV       *float64 `json:"vout_v"`
-	Probability float64  `json:"probability"`
-	// Named is true when the technician named it (--original) rather than
-	// taking identification's leader.
-	Named bool `json:"named"`
 }
 
 // chosenDoc is the chosen replacement in the record's JSON.

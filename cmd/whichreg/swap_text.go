@@ -48,6 +48,9 @@ func writeSwapText(w io.Writer, width int, res *replace.Result, details int, qui
 	report.Fill(w, originalLine(res), width, "", "  ")
 	report.Fill(w, fmt.Sprintf("circuit: %s out, %s to %s; input %s at its lowest (%s), %s at its highest (%s)",
 		v(cd.VoutV), report.Num(cd.LoadMinA, "A"), report.Num(cd.LoadMaxA, "A"), v(cd.TroughV), cd.TroughAt, v(cd.PeakV), cd.PeakAt), width, "", "  ")
+	if cd.InputConflict != "" {
+		report.Fill(w, "conflict: "+cd.InputConflict, width, "", "  ")
+	}
 	for _, sf := range res.OriginalShortfalls {
 		report.Fill(w, "note: "+sf.Sentence(res.Original.Label()), width, "", "  ")
 	}
@@ -96,6 +99,9 @@ func writeSwapText(w io.Writer, width int, res *replace.Result, details int, qui
 
 func writeSwapMarkdown(w io.Writer, res *replace.Result, details int) {
 	fmt.Fprintf(w, "# Replacements\n\n%s\n\n", mdEscape(originalLine(res)))
+	if c := res.Conditions.InputConflict; c != "" {
+		fmt.Fprintf(w, "Conflict: %s\n\n", mdEscape(c))
+	}
 	for _, sf := range res.OriginalShortfalls {
 		fmt.Fprintf(w, "Note: %s\n\n", mdEscape(sf.Sentence(res.Original.Label())))
 	}

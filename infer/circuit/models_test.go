@@ -164,10 +164,10 @@ func TestThermal(t *testing.T) {
 	if tj := FreeAirTemp(100.0/39, 25, 39); !within(tj, 125, 1e-9) {
 		t.Errorf("free-air Tj %g", tj)
 	}
-	if cs, _ := CaseToSink("none", false); cs != 1.0 {
+	if cs, _ := CaseToSink("none", SmallTab); cs != 1.0 {
 		t.Errorf("TO-220 compound θCS %g, want 1.0 (TI SLVS330D)", cs)
 	}
-	if _, err := CaseToSink("glue", false); err == nil {
+	if _, err := CaseToSink("glue", SmallTab); err == nil {
 		t.Error("unknown insulator should be an error")
 	}
 }

@@ -36,10 +36,21 @@ func Insulators() []string {
 	return out
 }
 
+// CaseSize is the size of the metal face that meets the heat sink, which
+// sets the interface's thermal resistance.
+type CaseSize int
+
+const (
+	// SmallTab is a plastic package's tab (TO-220, TO-126, TO-202).
+	SmallTab CaseSize = iota
+	// LargeCan is a TO-3 or TO-66 metal can.
+	LargeCan
+)
+
 // CaseToSink returns θCS, the case-to-heat-sink thermal resistance in °C/W,
 // for an interface (one of [Insulators]: "none" = bare metal with thermal
 // compound, "grease", "mica", "silicone", "unknown") on a large can (TO-3,
-// TO-66) or a small tab.
+// TO-66, size [LargeCan]) or a small tab ([SmallTab]).
 //
 // Values: TO-220 with compound 1.0 °C/W (TI TPS758xx SLVS330D); TO-3 with
 // grease 0.40, grease + mica 1.00 °C/W (blog.mbedded.ninja TO-3 page, as
@@ -47,10 +58,10 @@ func Insulators() []string {
 // from memory); silicone pads 2.5 °C/W on a TO-220 and 1.5 on a TO-3 (from
 // memory, the middle of the 1.5–3 range). "unknown" takes the silicone pad,
 // the worst of the three.
-func CaseToSink(insulator string, largeCan bool) (float64, error) {
+func CaseToSink(insulator string, size CaseSize) (float64, error) {
 	for _, r := range insulatorTable() {
 		if strings.EqualFold(r.word, insulator) {
-			if largeCan {
+			if size == LargeCan {
 				return r.large, nil
 			}
 			return r.small, nil
@@ -65,8 +76,7 @@ func CaseToSink(insulator string, largeCan bool) (float64, error) {
 //	Tj = Ta + P·(θJC + θCS + θSA)
 //
 // (the datasheet heat-sink procedure, e.g. National/TI LM317 "Heatsink
-// Requirements"). With no heat sink (thetaSA = 0 and free = true) it uses the
-// free-air figure: Tj = Ta + P·θJA.
+// Requirements"). With no heat sink use [FreeAirTemp].
 func JunctionTemp(powerW, ambientC, thetaJC, thetaCS, thetaSA float64) float64 {
 	return ambientC + powerW*(thetaJC+thetaCS+thetaSA)
 }

@@ -64,8 +64,11 @@ func prepareCandidate(in *Input, h infer.Hypothesis) cand {
 	if c.kit {
 		ins = "mica" // the kit fitted: greased mica washer and bushing
 	}
-	large := o != nil && o.CaseTerminal
-	c.thetaCS, _ = circuit.CaseToSink(ins, large)
+	size := circuit.SmallTab
+	if o != nil && o.CaseTerminal {
+		size = circuit.LargeCan
+	}
+	c.thetaCS, _ = circuit.CaseToSink(ins, size)
 	// Current and dissipation, with the bypass resistor's share.
 	vout := cd.VoutV
 	c.iregA = in.RegLoadA

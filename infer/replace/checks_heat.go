@@ -26,7 +26,7 @@ func thermalPath(in Input, c cand) (float64, string) {
 		if jc == 0 {
 			jc = p.ThetaJA / 4 // isolated packages without a θJC: a quarter of θJA (from memory)
 		}
-		cs, _ := circuit.CaseToSink("none", false)
+		cs, _ := circuit.CaseToSink("none", circuit.SmallTab)
 		return jc + cs + cd.HeatsinkCW, fmt.Sprintf("θJC %g (isolated body) + θCS %g + θSA %g °C/W", jc, cs, cd.HeatsinkCW)
 	case cd.HeatsinkCW > 0 && o != nil && (o.Tab || o.MetalCan):
 		ins := cd.Insulator

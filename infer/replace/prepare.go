@@ -29,6 +29,9 @@ type Conditions struct {
 	Insulator   string            `json:"insulator"`    // the old part's insulator
 	Grounded    bool              `json:"grounded"`     // heat sink bonded to chassis/ground (or not known: taken as bonded)
 	BypassOhm   float64           `json:"bypass_ohm"`   // 0 = none
+	// InputConflict says why the [input] description was set aside for the
+	// IN lead's reading ("" when they agree or only one is given).
+	InputConflict string `json:"input_conflict,omitempty"`
 	// OldTabV is the potential of the old part's tab or can, volts, signed;
 	// null when it has none or nothing says.
 	OldTabV *float64 `json:"old_tab_v"`
@@ -73,18 +76,18 @@ func (n *Network) Lift(vnomV, iA float64) float64 {
 
 // Cap is the board's output capacitor as the evidence gives it.
 type Cap struct {
-	UF     float64 // microfarads; meaningful when UFSet
-	UFSet  bool
+	UF     float64       // microfarads; meaningful when UFSet
+	UFSet  bool          // the evidence gives a capacitance
 	Type   infer.CapType // "" when not given
 	Silent bool          // nothing at all is said about it
 }
 
 // Input is everything the checks read: prepared once per swap.
 type Input struct {
-	Ev   *infer.Evidence
-	Orig infer.Original
-	Op   infer.Operating
-	Cond Conditions
+	Ev   *infer.Evidence // the evidence as loaded
+	Orig infer.Original  // the part being replaced
+	Op   infer.Operating // the input and load at every corner
+	Cond Conditions      // the conditions every candidate is checked under
 	// Network is the original's common-lead network (nil when none).
 	Network *Network
 	// Lifted is true when a fixed original sits on a common-lead network.
@@ -123,6 +126,7 @@ func Prepare(ev *infer.Evidence, orig infer.Original) (*Input, []string, error) 
 	}
 	in.Op = *op
 	if vin, ok := tv[catalog.PinIn]; ok {
+		in.Op, cd.InputConflict = in.Op.Reconcile(vin)
 		in.Op = in.Op.FromReading(vin)
 	}
 	if in.Op.Source == infer.InputUnknown {

@@ -11,7 +11,7 @@ import (
 // (in Unit, SI; nil when the check has no number), the same figures as
 // text, the normalised margin, the status and one sentence of why.
 type Check struct {
-	Name      CheckName `json:"check"`
+	Name      CheckName `json:"check"`      // which check (the contract's names)
 	Value     *float64  `json:"value"`      // what the candidate meets here
 	Limit     *float64  `json:"limit"`      // what it must meet
 	Unit      string    `json:"unit"`       // V, A, W, °C, F or "" (null figures)

@@ -9,10 +9,15 @@ import (
 	"github.com/google/go-cmp/cmp"
 )
 
+// Update says whether [Check] rewrites the golden file with what the test
+// got (go test -update) instead of comparing: call sites read
+// golden.Check(t, path, got, golden.Update(*update)).
+type Update bool
+
 // Check compares got with the file at path. With update it writes got to
 // the file instead. A missing file fails the test with the command that
 // creates it.
-func Check(t testing.TB, path, got string, update bool) {
+func Check(t testing.TB, path, got string, update Update) {
 	t.Helper()
 	if update {
 		if err := os.WriteFile(path, []byte(got), 0o644); err != nil {
