@@ -3,7 +3,6 @@ package main
 import (
 	"fmt"
 	"io"
-	"math"
 
 	"github.com/whichreg/whichreg/infer/replace"
 	"github.com/whichreg/whichreg/report"
@@ -24,14 +23,15 @@ func originalLine(res *replace.Result) string {
 	return fmt.Sprintf("original: %s (named with --original)", o.Label())
 }
 
-// marginText writes a check's margin in its unit when value and limit are
-// numbers, with the normalised margin as a percentage.
+// marginText writes a check's margin in its unit where the limit is a
+// bound ([replace.Check.MarginInUnit]), with the normalised margin as a
+// percentage.
 func marginText(ch replace.Check) string {
 	m := fmt.Sprintf("%+.0f %%", 100*ch.Margin)
-	if ch.Value == nil || ch.Limit == nil || ch.Unit == "" || math.IsNaN(ch.Margin) {
-		return m
+	d, ok := ch.MarginInUnit()
+	if !ok {
+		return m // a target with a tolerance, a fit, a word: the share says it
 	}
-	d := math.Copysign(math.Abs(*ch.Limit-*ch.Value), ch.Margin)
 	if report.Num(d, ch.Unit) == report.Num(0, ch.Unit) {
 		return m // a target with a tolerance: the share says it
 	}
