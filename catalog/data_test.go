@@ -50,6 +50,7 @@ func TestVariantPinouts(t *testing.T) {
 		{"333", "TO-220", "", []string{"ADJ", "IN", "OUT"}, "IN", "National LM333T (DS009065 front view); the 337's order, from memory"},
 		{"333", "TO-3", "", []string{"ADJ", "OUT"}, "IN", "National LM333K STEEL (DS009065 bottom view); the 337's leads, from memory"},
 		{"2930", "TO-220", "", []string{"IN", "GND", "OUT"}, "GND", "National LM2930T (DS005539 front view); lead order from memory"},
+		{"1083", "TO-220", "", []string{"ADJ", "OUT", "IN"}, "OUT", "Linear Technology LT1083/84/85: 'pin compatible with older 3-terminal regulators'; case connected to the output"},
 		{"320", "TO-39", "", []string{"GND", "OUT", "IN"}, "IN", "LM320H lead order as the 337's TO-39 (SGS-Thomson LM137 1993: 1 ADJ, 2 OUT, 3 IN), from memory"},
 	}
 	for _, tt := range tests {
@@ -120,6 +121,8 @@ func TestCorrectedFigures(t *testing.T) {
 		{"333", "vdiff_max_v", func(f *catalog.Family) float64 { return f.VdiffMaxV }, 35, "National LM133/LM333 DS009065: input-output voltage differential 35 V"},
 		{"2930", "dropout_v", func(f *catalog.Family) float64 { return f.DropoutV }, 0.6, "National LM2930 DS005539: dropout 0.6 V max at 150 mA"},
 		{"2930", "vin_max_v", func(f *catalog.Family) float64 { return f.VinMaxV }, 26, "National LM2930 DS005539: input voltage operating range 26 V"},
+		{"1083", "current_a", func(f *catalog.Family) float64 { return f.CurrentA }, 7.5, "Linear Technology LT1083: 7.5 A"},
+		{"1083", "dropout_v", func(f *catalog.Family) float64 { return f.DropoutV }, 1.5, "Linear Technology LT1083: dropout 1.5 V max at maximum output current"},
 		{"buck-5lead", "vref_v", func(f *catalog.Family) float64 { return f.VrefV }, 1.23, "TI LM2596: 1.23 V feedback reference"},
 	}
 	for _, tt := range num {

@@ -3,6 +3,7 @@ package infer
 import (
 	"fmt"
 	"math"
+	"strings"
 
 	"github.com/whichreg/whichreg/infer/circuit"
 )
@@ -267,6 +268,48 @@ func (op Operating) FromReading(vin float64) Operating {
 			vm, ripple, readingDropV, readingLightDropV, readingRegulation*100, t*100),
 		"describe the [input] rectifier, secondary and filter, or measure the trough with a scope, to replace these bounds with the model")
 	return op
+}
+
+// readingConflict is how far a meter reading of the IN lead may sit outside
+// the rectifier model's envelope (its lowest full-load mean to its highest
+// peak) before the two are taken to contradict each other: 10 %, well
+// beyond a meter's error and the model's agreement with ngspice (common
+// practice, no source).
+const readingConflict = 0.10
+
+// Reconcile compares vin, a meter reading of the IN lead, with the
+// rectifier model. When the reading lies outside everything the model can
+// produce (above its highest peak or below its lowest full-load mean by
+// more than 10 %), the description and the reading contradict each other
+// (a slip in the notes, a wrong secondary or filter value); Reconcile then
+// returns the operating point bounded from the reading (see
+// [Operating.FromReading]) and a sentence saying so. Otherwise it returns
+// op unchanged and "".
+func (op Operating) Reconcile(vin float64) (Operating, string) {
+	vm := math.Abs(vin)
+	if op.Source != InputRectifier || vm == 0 {
+		return op, ""
+	}
+	var what string
+	switch {
+	case vm > op.Peak.V*(1+readingConflict):
+		what = fmt.Sprintf("the IN lead reads %.3g V, above the %.3g V the described rectifier can reach at %s", vm, op.Peak.V, op.Peak.At)
+	case vm < op.MeanLow.V*(1-readingConflict):
+		what = fmt.Sprintf("the IN lead reads %.3g V, below the %.3g V the described rectifier gives even at %s", vm, op.MeanLow.V, op.MeanLow.At)
+	default:
+		return op, ""
+	}
+	r := op
+	r.Source, r.Corners, r.Rectifier = InputUnknown, nil, nil
+	r.Nominal, r.Trough, r.Peak, r.MeanHigh, r.MeanLow = Levels{}, Level{}, Level{}, Level{}, Level{}
+	r.Assumptions = nil
+	for _, a := range op.Assumptions {
+		if !strings.Contains(a, "ESR 0.05 Ω") && !strings.HasPrefix(a, "transformer regulation") && !strings.HasPrefix(a, "50 Hz") {
+			r.Assumptions = append(r.Assumptions, a) // the model's own assumptions no longer apply
+		}
+	}
+	r = r.FromReading(vin)
+	return r, what + ": the [input] description and the reading contradict each other (a slip in the notes, a wrong secondary or filter value?); the checks use the bound from the reading instead; correct the [input] table to use the model"
 }
 
 // PeakFor returns the highest input given vin, a meter reading of the IN

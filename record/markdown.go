@@ -205,7 +205,11 @@ func writeEvidence(m *mdw, rec Record) {
 			}
 		case nil:
 		default:
-			rows = append(rows, fmt.Sprintf("| %s | %s |", prefix, esc(fmt.Sprint(x))))
+			val := fmt.Sprint(x)
+			if prefix == "mount.heatsink_c_per_w" && val == "0" {
+				val = "0 (free air)" // the evidence's own word for no heat sink
+			}
+			rows = append(rows, fmt.Sprintf("| %s | %s |", prefix, esc(val)))
 		}
 	}
 	walk("", doc)

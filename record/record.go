@@ -155,6 +155,12 @@ func Build(in Input) Record {
 	if !o.Named && o.Probability < LowConfidence {
 		rec.Warnings = append(rec.Warnings, fmt.Sprintf("the original %s is identification's leader at only %.0f %%: make the suggested measurements, or name it with --original", o.Label(), 100*o.Probability))
 	}
+	if c := sres.Conditions.InputConflict; c != "" {
+		rec.Warnings = append(rec.Warnings, c)
+	}
+	for _, sf := range sres.OriginalShortfalls {
+		rec.Warnings = append(rec.Warnings, sf.Sentence(o.Label()))
+	}
 	if ch.Verdict == replace.Unsuitable {
 		rec.Warnings = append(rec.Warnings, fmt.Sprintf("%s is unsuitable here and was recorded on the technician's override: %s", ch.Label(), rec.Override))
 	}
@@ -239,20 +245,48 @@ func RunnersUp(sres *replace.Result, chosen *replace.Replacement, n int) []Runne
 // template's lines), which are not bench notes.
 var keyComment = regexp.MustCompile(`^\s*#\s*(\[[^\]]*\]|[A-Za-z0-9_."]+\s*=)`)
 
+// annotation matches the project's own machine annotations of its scenario
+// files, "# want: 78xx TO-220 5", "# expect: LFxx:TO-220 needs-work
+// cout=work", "# original: 337:TO-220", "# shortfall: dropout value=1.2",
+// which are test expectations, not bench notes: the word and a colon at the
+// start of the line, then a catalog id (with an optional :OUTLINE:VOUT)
+// alone, or followed by an outline name, an output voltage, a verdict or a
+// key=value. A note
+// in words ("# expect: hum at low mains") does not match and is kept.
+var annotation = regexp.MustCompile(`^#\s*(want|expect|original|shortfall):\s*[0-9A-Za-z]+(-[0-9A-Za-z]+)*(:\S+)?(\s*$|\s+([A-Z][A-Z0-9]*-?[0-9][A-Z0-9-]*|[0-9.]+|drop-in|needs-work|unsuitable|\S+=\S*)(\s|$))`)
+
+// labelled matches a comment line that starts a note of its own with a
+// label ("fuse: …", "expect: …") rather than going on with the one above.
+var labelled = regexp.MustCompile(`^[A-Za-z][\w-]*:\s`)
+
 // BenchNotes returns the comments of an evidence file as the technician
-// wrote them: whole-line comments (less commented-out keys and tables) and
-// the comments after values, prefixed with their key.
+// wrote them: whole-line comments, consecutive lines joined into one note
+// (less commented-out keys and tables, and
+// less the test annotations [annotation] matches) and the comments after
+// values, prefixed with their key.
 func BenchNotes(src []byte) []string {
 	var notes []string
 	table := ""
+	para := false // the last note is a whole-line comment that may go on
 	for _, line := range strings.Split(string(src), "\n") {
 		t := strings.TrimSpace(line)
+		if !strings.HasPrefix(t, "#") || keyComment.MatchString(t) || annotation.MatchString(t) {
+			para = false
+		}
 		switch {
-		case t == "" || keyComment.MatchString(t):
+		case t == "" || keyComment.MatchString(t) || annotation.MatchString(t):
 		case strings.HasPrefix(t, "#"):
-			if s := strings.TrimSpace(strings.TrimLeft(t, "#")); s != "" {
+			s := strings.TrimSpace(strings.TrimLeft(t, "#"))
+			switch {
+			case s == "":
+				para = false
+			case para && len(notes) > 0 && !labelled.MatchString(s):
+				notes[len(notes)-1] += " " + s // a paragraph written over several lines
+			default:
 				notes = append(notes, s)
+				para = true
 			}
+			continue
 		case strings.HasPrefix(t, "["):
 			table = strings.Trim(strings.SplitN(t, "#", 2)[0], " []")
 		default:

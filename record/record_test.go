@@ -19,6 +19,7 @@ import (
 
 func TestBenchNotes(t *testing.T) {
 	src := `# U4 on the bench supply: the fan was running during the readings
+# and the lid was off.
 # [pins.1]
 # wired_to = "unregulated"
 ref = "U4"   # silkscreen half gone
@@ -28,14 +29,26 @@ marking = "A#7"   # the # in the marking is not a comment
 #
 [mount]
 insulator = "mica" # cracked at one corner
+# want: 78xx TO-220 5
+# want: not-in-catalog
+# expect: LFxx:TO-220 needs-work cout=work
+# original: 337:TO-220
+# shortfall: dropout value=1.2 limit=1.4
+# expect: hum at low mains until the new part went in
+# want: a spare fuse in the kit
+# expect: 78xx 5 V (lifted by one diode)
+# expect: 2 V more at low mains
 `
 	got := record.BenchNotes([]byte(src))
 	want := []string{
-		"U4 on the bench supply: the fan was running during the readings",
+		"U4 on the bench supply: the fan was running during the readings and the lid was off.",
 		"ref: silkscreen half gone",
 		"pins.2.volts: measured with the load on",
 		"pins.2.marking: the # in the marking is not a comment",
 		"mount.insulator: cracked at one corner",
+		"expect: hum at low mains until the new part went in",
+		"want: a spare fuse in the kit",
+		"expect: 2 V more at low mains",
 	}
 	if d := cmp.Diff(want, got); d != "" {
 		t.Errorf("BenchNotes (-want +got):\n%s", d)

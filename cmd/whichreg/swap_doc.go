@@ -90,6 +90,9 @@ type conditionsDoc struct {
 	BypassOhm   *float64    `json:"bypass_ohm"`
 	OldTabV     *float64    `json:"old_tab_v"`
 	Corners     *cornersDoc `json:"corners"`
+	// InputConflict says why the [input] description was set aside for the
+	// IN lead's reading; null when they agree.
+	InputConflict *string `json:"input_conflict"`
 }
 
 // signedV returns a hypothesis's output voltage, signed, or nil when unknown.
@@ -113,7 +116,7 @@ func conditionsDocOf(c replace.Conditions) conditionsDoc {
 		InputSource: string(c.Source), TroughV: s(c.TroughV), TroughAt: c.TroughAt, PeakV: s(c.PeakV), PeakAt: c.PeakAt,
 		HotInV: s(c.HotInV), ColdInV: s(c.ColdInV), TransientV: positive(c.TransientV, 1), AmbientC: c.AmbientC,
 		HeatsinkCPW: positive(c.HeatsinkCW, 1), Insulator: c.Insulator, Grounded: c.Grounded, BypassOhm: positive(c.BypassOhm, 1),
-		OldTabV: sigPtr(c.OldTabV), Corners: cornersDocOf(c.Corners)}
+		OldTabV: sigPtr(c.OldTabV), Corners: cornersDocOf(c.Corners), InputConflict: orNull(c.InputConflict)}
 }
 
 func swapDocOf(res *replace.Result) swapDoc {

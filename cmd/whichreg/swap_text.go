@@ -3,7 +3,6 @@ package main
 import (
 	"fmt"
 	"io"
-	"math"
 
 	"github.com/whichreg/whichreg/infer/replace"
 	"github.com/whichreg/whichreg/report"
@@ -24,14 +23,15 @@ func originalLine(res *replace.Result) string {
 	return fmt.Sprintf("original: %s (named with --original)", o.Label())
 }
 
-// marginText writes a check's margin in its unit when value and limit are
-// numbers, with the normalised margin as a percentage.
+// marginText writes a check's margin in its unit where the limit is a
+// bound ([replace.Check.MarginInUnit]), with the normalised margin as a
+// percentage.
 func marginText(ch replace.Check) string {
 	m := fmt.Sprintf("%+.0f %%", 100*ch.Margin)
-	if ch.Value == nil || ch.Limit == nil || ch.Unit == "" || math.IsNaN(ch.Margin) {
-		return m
+	d, ok := ch.MarginInUnit()
+	if !ok {
+		return m // a target with a tolerance, a fit, a word: the share says it
 	}
-	d := math.Copysign(math.Abs(*ch.Limit-*ch.Value), ch.Margin)
 	if report.Num(d, ch.Unit) == report.Num(0, ch.Unit) {
 		return m // a target with a tolerance: the share says it
 	}
@@ -48,6 +48,9 @@ func writeSwapText(w io.Writer, width int, res *replace.Result, details int, qui
 	report.Fill(w, originalLine(res), width, "", "  ")
 	report.Fill(w, fmt.Sprintf("circuit: %s out, %s to %s; input %s at its lowest (%s), %s at its highest (%s)",
 		v(cd.VoutV), report.Num(cd.LoadMinA, "A"), report.Num(cd.LoadMaxA, "A"), v(cd.TroughV), cd.TroughAt, v(cd.PeakV), cd.PeakAt), width, "", "  ")
+	if cd.InputConflict != "" {
+		report.Fill(w, "conflict: "+cd.InputConflict, width, "", "  ")
+	}
 	for _, sf := range res.OriginalShortfalls {
 		report.Fill(w, "note: "+sf.Sentence(res.Original.Label()), width, "", "  ")
 	}
@@ -96,6 +99,9 @@ func writeSwapText(w io.Writer, width int, res *replace.Result, details int, qui
 
 func writeSwapMarkdown(w io.Writer, res *replace.Result, details int) {
 	fmt.Fprintf(w, "# Replacements\n\n%s\n\n", mdEscape(originalLine(res)))
+	if c := res.Conditions.InputConflict; c != "" {
+		fmt.Fprintf(w, "Conflict: %s\n\n", mdEscape(c))
+	}
 	for _, sf := range res.OriginalShortfalls {
 		fmt.Fprintf(w, "Note: %s\n\n", mdEscape(sf.Sentence(res.Original.Label())))
 	}

@@ -29,6 +29,9 @@ type Conditions struct {
 	Insulator   string            `json:"insulator"`    // the old part's insulator
 	Grounded    bool              `json:"grounded"`     // heat sink bonded to chassis/ground (or not known: taken as bonded)
 	BypassOhm   float64           `json:"bypass_ohm"`   // 0 = none
+	// InputConflict says why the [input] description was set aside for the
+	// IN lead's reading ("" when they agree or only one is given).
+	InputConflict string `json:"input_conflict,omitempty"`
 	// OldTabV is the potential of the old part's tab or can, volts, signed;
 	// null when it has none or nothing says.
 	OldTabV *float64 `json:"old_tab_v"`
@@ -123,6 +126,7 @@ func Prepare(ev *infer.Evidence, orig infer.Original) (*Input, []string, error) 
 	}
 	in.Op = *op
 	if vin, ok := tv[catalog.PinIn]; ok {
+		in.Op, cd.InputConflict = in.Op.Reconcile(vin)
 		in.Op = in.Op.FromReading(vin)
 	}
 	if in.Op.Source == infer.InputUnknown {

@@ -2,6 +2,7 @@ package replace
 
 import (
 	"fmt"
+	"math"
 	"strings"
 
 	"github.com/whichreg/whichreg/infer"
@@ -22,6 +23,24 @@ type Check struct {
 	Text      string    `json:"text"`       // one sentence of why
 	// Action is what to do about it (install notes; "" when nothing).
 	Action string `json:"action,omitempty"`
+}
+
+// MarginInUnit returns the margin in the check's unit, signed like Margin
+// (> 0 inside the limit), for the checks whose limit is a bound the value
+// must stay on one side of: current, vin_max, dropout, thermal, cout and
+// min_load. For the others (a target with a tolerance, a fit, a word) the
+// distance between value and limit is not a margin, and ok is false: the
+// normalised Margin alone says it.
+func (c Check) MarginInUnit() (m float64, ok bool) {
+	switch c.Name {
+	case CheckCurrent, CheckVinMax, CheckDropout, CheckThermal, CheckCout, CheckMinLoad:
+	default:
+		return 0, false
+	}
+	if c.Value == nil || c.Limit == nil || c.Unit == "" || math.IsNaN(c.Margin) {
+		return 0, false
+	}
+	return math.Copysign(math.Abs(*c.Limit-*c.Value), c.Margin), true
 }
 
 // num returns a pointer to x, for the figures of a Check.
