@@ -76,7 +76,7 @@ func nextMeasurements(c *catalog.Catalog, ev *Evidence, res *Result, opts Option
 	var out []Measurement
 	effort := map[string]float64{}
 	for _, m := range asks(c, ev, hs) {
-		if m.effort > 1 && opts.Tests == ReadingsOnly {
+		if m.effort >= benchEffort && opts.Tests == ReadingsOnly {
 			continue
 		}
 		gain, joint := mutualInfo(hs, 0, m.predict)

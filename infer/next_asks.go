@@ -42,9 +42,10 @@ type measurement struct {
 // leads it can have, whether it has a tab or can, and how its leads are
 // numbered when that is settled.
 type askScope struct {
-	leads   int    // the most leads a considered leader has (capped by what is known)
-	caseful bool   // some considered leader has a tab, pad or can
-	view    string // "on a TO-220: …" when every considered leader shares one outline; "" otherwise
+	leads    int    // the most leads a considered leader has (capped by what is known)
+	caseful  bool   // some considered leader has a tab, pad or can
+	terminal bool   // some considered leader's can is a terminal of its own (TO-3, TO-66)
+	view     string // "on a TO-220: …" when every considered leader shares one outline; "" otherwise
 }
 
 // scopeOf works out the [askScope] of the leaders, honouring a measured lead
@@ -71,6 +72,7 @@ func scopeOf(c *catalog.Catalog, ev *Evidence, hs []Candidate) askScope {
 			}
 			s.leads = max(s.leads, len(cd.Package.Pins))
 			s.caseful = s.caseful || o.Tab || o.MetalCan || o.CaseTerminal
+			s.terminal = s.terminal || o.CaseTerminal
 			outlines[o.Name] = o
 		}
 	}
@@ -80,6 +82,7 @@ func scopeOf(c *catalog.Catalog, ev *Evidence, hs []Candidate) askScope {
 	}
 	if o := c.Outline(ev.Package); o != nil && (ev.Outline == nil || ev.Outline.Leads == nil) {
 		s.caseful = o.Tab || o.MetalCan || o.CaseTerminal
+		s.terminal = o.CaseTerminal
 	}
 	if known > 0 {
 		s.leads = known
@@ -103,12 +106,13 @@ func asks(c *catalog.Catalog, ev *Evidence, hs []Candidate) []measurement {
 			ms = append(ms, continuityAsk(k, sc))
 		}
 		if !p.Volts.Set {
-			ms = append(ms, voltageAsk(k, sc))
+			ms = append(ms, voltageAsk(ev, k, sc))
 		}
 	}
 	if sc.caseful && (ev.Case == nil || ev.Case.TiedToPin == nil) {
 		ms = append(ms, caseAsk(sc))
 	}
+	ms = append(ms, caseTerminalAsks(ev, sc)...)
 	if ev.Output == nil || !ev.Output.Amps.Set {
 		ms = append(ms, loadAsk())
 	}
@@ -174,7 +178,7 @@ func continuityAsk(k int, sc askScope) measurement {
 	}
 }
 
-func voltageAsk(k int, sc askScope) measurement {
+func voltageAsk(ev *Evidence, k int, sc askScope) measurement {
 	return measurement{
 		Measurement: Measurement{
 			Key: fmt.Sprintf("pins.%d.volts", k), Kind: AskNumber, Unit: "V", Powered: true,
@@ -186,7 +190,8 @@ func voltageAsk(k int, sc askScope) measurement {
 			if k > len(h.Package.Pins) {
 				return outcomeDist{noLead: 1}
 			}
-			return outcomeDist{leadLevel(h, h.Package.Pins[k-1]): 1}
+			p, _ := ev.Lead(k)
+			return railDist(h, p.WiredTo, h.Package.Pins[k-1], terminalVolts(h, ev))
 		},
 		describe: func(key string) string {
 			if key == noLead {
@@ -389,60 +394,6 @@ func troughAsk(ev *Evidence) *measurement {
 		},
 		describe: func(key string) string { return "trough headroom " + key },
 	}
-}
-
-// leadLevel names the level a lead of function fn sits at under h, in
-// words a technician reads off a meter.
-func leadLevel(h Hypothesis, fn string) string {
-	f := h.Family
-	sign := f.SignText()
-	switch fn {
-	case catalog.PinIn:
-		return "the unregulated input (the largest voltage)"
-	case catalog.PinOut:
-		if h.VoutV > 0 {
-			return fmt.Sprintf("the output, %s%s V", sign, trimFloat(h.VoutV))
-		}
-		return "the output"
-	case catalog.PinGnd:
-		return "ground (or a lifted-ground level)"
-	case catalog.PinAdj:
-		if h.VoutV > 0 {
-			return fmt.Sprintf("%s%s V, the output less the reference", sign, trimFloat(h.VoutV-f.VrefV))
-		}
-		return "the output less the reference"
-	case catalog.PinB, catalog.PinG:
-		if len(f.ControlDropV) == 2 {
-			return fmt.Sprintf("%.1f–%.1f V beyond the output lead (a transistor's control lead)", f.ControlDropV[0], f.ControlDropV[1])
-		}
-		return "a little beyond the output lead (a transistor's control lead)"
-	case catalog.PinC, catalog.PinD:
-		if f.Device.Polarity() == "negative" {
-			return "the output (a P-type transistor's collector or drain)"
-		}
-		return "the unregulated input (a collector or drain)"
-	case catalog.PinE, catalog.PinS:
-		if f.Device.Polarity() == "negative" {
-			return "the unregulated input (a P-type transistor's emitter or source)"
-		}
-		return "the output (an emitter or source)"
-	case catalog.PinRef:
-		return fmt.Sprintf("%s V above the anode (a shunt reference's REF)", trimFloat(f.VrefV))
-	case catalog.PinA:
-		return "ground (a shunt reference's anode)"
-	case catalog.PinK:
-		return "the rail it holds (a shunt reference's cathode)"
-	case catalog.PinSW:
-		return "about the output, switching (a switcher's switch node)"
-	case catalog.PinFB:
-		if h.VoutV > 0 {
-			return fmt.Sprintf("the output, %s%s V (a switcher's feedback)", sign, trimFloat(h.VoutV))
-		}
-		return fmt.Sprintf("%s V (a switcher's feedback)", trimFloat(f.VrefV))
-	case catalog.PinEn, catalog.PinInh:
-		return "ground or the input (an on/off lead)"
-	}
-	return "nothing (not connected)"
 }
 
 // join joins the non-empty sentences with spaces.

@@ -107,3 +107,45 @@ func TestNextNamesEvidenceKeys(t *testing.T) {
 		}
 	}
 }
+
+// TestNextSeparatesLiftedGround: with the output read at 6.04 V and the
+// common lead not yet, a 6 V part predicts the common lead at about 0 V and
+// a 5 V part lifted by a volt about +1 V (the output less the part's own
+// voltage), so reading it is offered and its outcomes name both.
+func TestNextSeparatesLiftedGround(t *testing.T) {
+	c := builtinCatalog(t)
+	ev := load(t, c, "../testdata/infer/six-volts-or-lifted.toml")
+	res, err := infer.Identify(c, ev, infer.Options{NextCount: 20, Tests: infer.ReadingsOnly})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, m := range res.Next {
+		if m.Key != "pins.2.volts" {
+			continue
+		}
+		all := strings.Join(m.Outcomes, "\n")
+		if !strings.Contains(all, "lead 2 reads about 0 V") || !strings.Contains(all, "lead 2 reads about +1 V") {
+			t.Errorf("pins.2.volts outcomes do not separate a 6 V part from a lifted 5 V part:\n%s", all)
+		}
+		return
+	}
+	t.Errorf("pins.2.volts not offered: %+v", res.Next)
+}
+
+// TestNextAsksTheCan: on a two-lead can whose leads are out of reach, where
+// the can goes is offered (it is the third terminal).
+func TestNextAsksTheCan(t *testing.T) {
+	c := builtinCatalog(t)
+	ev := load(t, c, "../testdata/demo/controller-to3-case.toml")
+	ev.Case.WiredTo = ""
+	res, err := infer.Identify(c, ev, infer.Options{NextCount: 20, Tests: infer.ReadingsOnly})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, m := range res.Next {
+		if m.Key == "case.wired_to" {
+			return
+		}
+	}
+	t.Errorf("case.wired_to not offered on a TO-3: %+v", res.Next)
+}

@@ -30,7 +30,8 @@ func (wr wiringRow) p(w Wiring) float64 {
 	return 0
 }
 
-// wiringOf returns the row of a lead of function fn in family f. A
+// wiringOf returns the row of a lead of function fn in family f (what each
+// lead is wired to on a board: common practice, no source). A
 // transistor's leads take the row of what they do in a series pass circuit:
 // the collector (drain) of an N-type part and the emitter (source) of a
 // P-type part come from the unregulated rail, the other main lead feeds the
@@ -40,7 +41,6 @@ func wiringOf(f *catalog.Family, fn string) wiringRow {
 	output := row(0.02, 0.80, 0.08, 0.08, 0.01, 0.01)
 	control := row(0.05, 0.03, 0.04, 0.85, 0.02, 0.01)
 	ground := row(0.015, 0.02, 0.795, 0.15, 0.01, 0.01)
-	onOff := row(0.10, 0.05, 0.69, 0.10, 0.05, 0.01)
 	if d := f.Device; d.Transistor() {
 		pType := d.Polarity() == "negative"
 		switch fn {
@@ -69,8 +69,16 @@ func wiringOf(f *catalog.Family, fn string) wiringRow {
 		return row(0.015, 0.02, 0.10, 0.85, 0.005, 0.01)
 	case catalog.PinNC:
 		return row(0.05, 0.10, 0.10, 0.05, 0.69, 0.01)
-	case catalog.PinEn, catalog.PinInh:
-		return onOff
+	case catalog.PinSense: // remote sense: to the load, at its far end
+		return row(0.02, 0.85, 0.01, 0.10, 0.01, 0.01)
+	case catalog.PinEn: // on when high: tied to the input, or driven through a resistor
+		return row(0.55, 0.05, 0.05, 0.30, 0.04, 0.01)
+	case catalog.PinInh: // off when high: tied to ground, or driven through a resistor
+		return row(0.05, 0.03, 0.65, 0.22, 0.04, 0.01)
+	case catalog.PinPG: // an open-drain flag on its pull-up resistor
+		return row(0.03, 0.10, 0.02, 0.80, 0.04, 0.01)
+	case catalog.PinBYP: // a small capacitor to ground: traced as a network, or reads open on an ohmmeter
+		return row(0.01, 0.02, 0.05, 0.55, 0.36, 0.01)
 	case catalog.PinK: // a shunt reference's cathode is the rail it holds, fed through a resistor
 		return row(0.03, 0.55, 0.02, 0.38, 0.01, 0.01)
 	case catalog.PinFB: // tied to the output after the coil, or to a divider
