@@ -28,7 +28,7 @@ func newGuideCmd(app *App, runF func(*guideOptions) error) *cobra.Command {
 	opts := &guideOptions{app: app}
 	cmd := &cobra.Command{
 		Use:   "guide [EVIDENCE.toml]",
-		Short: "Ask for the next most informative measurement until the part is known",
+		Short: "Ask for the most informative measurement until the part is known",
 		Long: `guide runs a measuring session at the bench. It shows the three leading
 candidates, asks for the single most informative measurement (what to connect
 where, power off or on, the unit expected), writes your answer into the

@@ -2,6 +2,8 @@ package main
 
 import (
 	"bytes"
+	"encoding/json"
+	"os"
 	"path/filepath"
 	"strings"
 	"testing"
@@ -97,5 +99,70 @@ func BenchmarkInferNoRectifier(b *testing.B) {
 		if code := run(app, []string{"infer", "../../testdata/demo/controller-to3-case.toml"}); code != 0 {
 			b.Fatal(code)
 		}
+	}
+}
+
+// TestRecordHashFollowsContent: the same user catalog copied into two
+// folders (once through --catalog, once through the configuration
+// directory) gives the same catalog_sha256 in the record, and one changed
+// figure gives another (issue 9: the hash covered each entry's path).
+func TestRecordHashFollowsContent(t *testing.T) {
+	data, err := os.ReadFile("../../testdata/catalog/good/one-family.toml")
+	if err != nil {
+		t.Fatal(err)
+	}
+	demo := "../../testdata/demo/vending-lifted-ground.toml"
+	hash := func(t *testing.T, data []byte, viaConfig bool) string {
+		t.Helper()
+		dir := t.TempDir()
+		args := []string{"record", demo, "--choose", "78xx:TO-220", "--format", "json"}
+		app, out, errOut := testApp()
+		switch {
+		case data == nil: // the built-in catalog alone
+		case viaConfig:
+			if err := os.MkdirAll(filepath.Join(dir, "whichreg", "catalog"), 0o755); err != nil {
+				t.Fatal(err)
+			}
+			if err := os.WriteFile(filepath.Join(dir, "whichreg", "catalog", "shop.toml"), data, 0o644); err != nil {
+				t.Fatal(err)
+			}
+			app.ConfigDir = func() (string, error) { return dir, nil }
+		default:
+			name := filepath.Join(dir, "elsewhere", "copy.toml")
+			if err := os.MkdirAll(filepath.Dir(name), 0o755); err != nil {
+				t.Fatal(err)
+			}
+			if err := os.WriteFile(name, data, 0o644); err != nil {
+				t.Fatal(err)
+			}
+			args = append(args, "--catalog", name)
+		}
+		if code := run(app, args); code != 0 {
+			t.Fatalf("exit %d: %s", code, errOut)
+		}
+		var doc struct {
+			Hash string `json:"catalog_sha256"`
+		}
+		if err := json.Unmarshal(out.Bytes(), &doc); err != nil {
+			t.Fatal(err)
+		}
+		if len(doc.Hash) != 64 {
+			t.Fatalf("catalog_sha256 %q is not a hex SHA-256", doc.Hash)
+		}
+		return doc.Hash
+	}
+	a, b := hash(t, data, false), hash(t, data, true)
+	if a != b {
+		t.Errorf("the same catalog in two folders gives two hashes: %s, %s", a, b)
+	}
+	changed := bytes.Replace(data, []byte("theta_ja"), []byte("theta_ja = 99 # "), 1)
+	if bytes.Equal(changed, data) {
+		t.Fatal("the test catalog has no theta_ja to change")
+	}
+	if c := hash(t, changed, false); c == a {
+		t.Error("a changed figure left the hash as it was")
+	}
+	if hash(t, nil, false) == a {
+		t.Error("the user catalog did not reach the hash (was it read?)")
 	}
 }

@@ -213,6 +213,7 @@ written into every record.`,
 	root.InitDefaultHelpCmd()
 	typedUsageErrors(root)
 	addCompletions(root, app)
+	fitHelpFunc(root, app)
 	return root
 }
 

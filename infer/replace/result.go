@@ -76,15 +76,18 @@ type Shortfall struct {
 	Check      Check  // the original's own row
 	PassedBy   string // the best-ranked usable candidate that passes it; "" when none
 	PassedWith string // its value against its limit
+	cond       Conditions
 }
 
 // Sentence says it in words for the summary.
 func (s Shortfall) Sentence(orig string) string {
 	t := fmt.Sprintf("the original %s fails %s in this circuit too (%s against %s): %s",
-		orig, s.Check.Name, s.Check.ValueText, s.Check.LimitText, circuitWords(s.Check))
+		orig, s.Check.Name, s.Check.ValueText, s.Check.LimitText, circuitWords(s.Check, s.cond))
 	switch {
 	case s.PassedBy != "":
 		t += fmt.Sprintf("; %s passes it (%s)", s.PassedBy, s.PassedWith)
+	case s.cond.Source == infer.InputReading:
+		t += "; no usable part passes it on this bound: describe the input ([input] rectifier, secondary and filter, or rectifier = \"dc\" for a battery or DC supply) to settle it"
 	case s.Check.Name == CheckDropout:
 		t += "; no usable part passes it: the circuit needs more filter capacitance, a higher secondary or less load"
 	default:

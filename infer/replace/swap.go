@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"sort"
+	"strings"
 
 	"github.com/whichreg/whichreg/catalog"
 	"github.com/whichreg/whichreg/infer"
@@ -69,6 +70,16 @@ func better(a, b *Replacement) bool {
 	}
 	if a.Verdict == Unsuitable && a.FailsLikeOriginal != b.FailsLikeOriginal {
 		return a.FailsLikeOriginal // no worse here than the part that was there
+	}
+	if a.Verdict == Unsuitable && a.Deciding == b.Deciding {
+		// Failing the same check: the one that misses by less, in the
+		// check's unit (a normalised margin would favour the part that
+		// needs more headroom when the headroom is negative).
+		ma, oka := a.Check(a.Deciding).MarginInUnit()
+		mb, okb := b.Check(b.Deciding).MarginInUnit()
+		if oka && okb && math.Abs(ma-mb) > 1e-9 {
+			return ma > mb
+		}
 	}
 	if a.Verdict == NeedsWork && a.WorkCount != b.WorkCount {
 		return a.WorkCount < b.WorkCount
@@ -182,7 +193,7 @@ func originalShortfalls(in *Input, orig infer.Original, all []Replacement) []Sho
 		}
 		if ch.Status == Fail {
 			failed[ch.Name] = &ch
-			out = append(out, Shortfall{Check: ch})
+			out = append(out, Shortfall{Check: ch, cond: in.Cond})
 		}
 	}
 	if len(out) == 0 {
@@ -199,7 +210,7 @@ func originalShortfalls(in *Input, orig infer.Original, all []Replacement) []Sho
 			fails++
 			if oc, ok := failed[ch.Name]; ok {
 				shared++
-				ch.Text += "; the original part has the same shortfall (" + oc.ValueText + " against " + oc.LimitText + "): " + circuitWords(*oc)
+				ch.Text += "; the original part has the same shortfall (" + oc.ValueText + " against " + oc.LimitText + "): " + circuitWords(*oc, in.Cond)
 			}
 		}
 		r.FailsLikeOriginal = fails > 0 && fails == shared
@@ -232,11 +243,22 @@ func originalShortfalls(in *Input, orig infer.Original, all []Replacement) []Sho
 // rating, the original could not have run so and the evidence is to be
 // checked (a confident verdict on a wrong load or mounting is the worst
 // outcome).
-func circuitWords(own Check) string {
+func circuitWords(own Check, cd Conditions) string {
 	if (own.Name == CheckThermal || own.Name == CheckCurrent) && own.Margin < -0.5 {
 		return "the original could not have run like this for long: check the load and the mounting the evidence gives"
 	}
-	return "the circuit, not the part, is marginal " + where(own.Name)
+	s := "the circuit, not the part, is marginal " + where(own.Name)
+	var on []string
+	if cd.LoadAssumed && own.Name != CheckVinMax {
+		on = append(on, "the assumed load")
+	}
+	if cd.Source == infer.InputReading && (own.Name == CheckDropout || own.Name == CheckVinMax || own.Name == CheckThermal) {
+		on = append(on, "the bound from the meter reading")
+	}
+	if len(on) > 0 {
+		s += " (this rests on " + strings.Join(on, " and ") + ": measure to settle it)"
+	}
+	return s
 }
 
 // where says under which condition a check's shortfall shows.
