@@ -2,6 +2,7 @@ package catalog_test
 
 import (
 	"slices"
+	"strings"
 	"testing"
 
 	"github.com/google/go-cmp/cmp"
@@ -50,6 +51,7 @@ func TestVariantPinouts(t *testing.T) {
 		{"333", "TO-220", "", []string{"ADJ", "IN", "OUT"}, "IN", "National LM333T (DS009065 front view); the 337's order, from memory"},
 		{"333", "TO-3", "", []string{"ADJ", "OUT"}, "IN", "National LM333K STEEL (DS009065 bottom view); the 337's leads, from memory"},
 		{"2930", "TO-220", "", []string{"IN", "GND", "OUT"}, "GND", "National LM2930T (DS005539 front view); lead order from memory"},
+		{"78Mxx", "TO-39", "", []string{"IN", "GND", "OUT"}, "GND", "TI LM341/LM78M05 SNVS090F: 'Pin 1 Input, 2 Ground, 3 Output; Tab/Case is Ground' (TO package = TO-39)"},
 		{"1083", "TO-220", "", []string{"ADJ", "OUT", "IN"}, "OUT", "Linear Technology LT1083/84/85: 'pin compatible with older 3-terminal regulators'; case connected to the output"},
 		{"320", "TO-39", "", []string{"GND", "OUT", "IN"}, "IN", "LM320H lead order as the 337's TO-39 (SGS-Thomson LM137 1993: 1 ADJ, 2 OUT, 3 IN), from memory"},
 	}
@@ -195,6 +197,37 @@ func TestOrderCodeVoltages(t *testing.T) {
 				case !f.Adjustable() && len(h.VoutV) > 0 && !slices.ContainsFunc(h.VoutV, func(v float64) bool { return slices.Contains(f.OutputsV, v) }):
 					t.Errorf("%s under %s %s names %v V, a voltage the family lacks (%v)", oc, f.ID, p.Outline, h.VoutV, f.OutputsV)
 				}
+			}
+		}
+	}
+}
+
+// TestTwoSidedDrawings: the SOT-23 outlines are drawn with their leads on
+// both sides, as the makers' top views show them: SOT-23-5 lead 5 opposite
+// lead 1 and 4 opposite 3 (TI LP2992 DBV pin table, Diodes AP2127 DS36478
+// pin assignment); SOT-23 lead 3 opposite the gap between 1 and 2 (NXP SOT23
+// outline).
+func TestTwoSidedDrawings(t *testing.T) {
+	c := builtin.Catalog()
+	for _, tt := range []struct {
+		family, outline string
+		above           map[string]float64 // far lead number -> near column (0 = lead 1)
+	}{
+		{"2985", "SOT-23-5", map[string]float64{"5": 0, "4": 2}},
+		{"6206", "SOT-23", map[string]float64{"3": 0.5}},
+	} {
+		f := c.Family(tt.family)
+		p := f.Package(c, tt.outline)
+		lines := strings.Split(catalog.Drawing(c.Outline(tt.outline), p), "\n")
+		// lines[0] is the view; lines[2] the far numbers; the near numbers
+		// follow the body.
+		far, nearNums := lines[2], lines[len(lines)-3]
+		col1 := strings.Index(nearNums, "1")
+		col2 := strings.Index(nearNums, "2")
+		for num, col := range tt.above {
+			want := col1 + int(col*float64(col2-col1))
+			if got := strings.Index(far, num); got != want {
+				t.Errorf("%s %s: far lead %s drawn at column %d, want %d (above near column %g):\n%s", tt.family, tt.outline, num, got, want, col, strings.Join(lines, "\n"))
 			}
 		}
 	}

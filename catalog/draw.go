@@ -26,6 +26,10 @@ func Drawing(o *Outline, p *Package) string {
 		return b.String()
 	}
 	w := 6
+	if near, far, ok := twoSided(o, len(p.Pins)); ok {
+		drawTwoSided(&b, p, near, far, w)
+		return b.String()
+	}
 	n := len(p.Pins)
 	width := n * w
 	top := "+" + strings.Repeat("-", width-1) + "+"
@@ -57,6 +61,61 @@ func Drawing(o *Outline, p *Package) string {
 	}
 	fmt.Fprintf(&b, "  %s\n  %s\n  %s\n", strings.TrimRight(leads.String(), " "), strings.TrimRight(nums.String(), " "), strings.TrimRight(fns.String(), " "))
 	return b.String()
+}
+
+// farLead is a lead on the far side of a small-outline package: its index
+// in the pin list and the near-side column it stands above (x.5 = between
+// two columns).
+type farLead struct {
+	pin int
+	col float64
+}
+
+// twoSided returns, for the small-outline packages whose leads leave on
+// both long sides, how many leads are on the near side (numbered from the
+// left) and where the far-side leads stand, as the outlines' views say:
+// SOT-23 has 1 and 2 near and 3 opposite, midway (NXP SOT23); SOT-23-5 has
+// 1-2-3 near, 4 opposite 3 and 5 opposite 1 (TI DBV, Diodes AP2127 pin
+// assignment). Other outlines are drawn with every lead in one row.
+func twoSided(o *Outline, pins int) (near int, far []farLead, ok bool) {
+	if o == nil {
+		return 0, nil, false
+	}
+	switch {
+	case o.Name == "SOT-23" && pins == 3:
+		return 2, []farLead{{2, 0.5}}, true
+	case o.Name == "SOT-23-5" && pins == 5:
+		return 3, []farLead{{4, 0}, {3, 2}}, true
+	}
+	return 0, nil, false
+}
+
+// drawTwoSided draws a body with near leads below it and far leads above,
+// each lead with its number and function.
+func drawTwoSided(b *strings.Builder, p *Package, near int, far []farLead, w int) {
+	width := near * w
+	row := func(text func(f farLead) string) string {
+		line := []byte(strings.Repeat(" ", width+w))
+		for _, f := range far {
+			s := text(f)
+			at := max(0, min(int(f.col*float64(w))+(w-len(s))/2, len(line)-len(s)))
+			copy(line[at:], s)
+		}
+		return strings.TrimRight(string(line), " ")
+	}
+	fmt.Fprintf(b, "  %s\n  %s\n  %s\n",
+		row(func(f farLead) string { return p.Pins[f.pin] }),
+		row(func(f farLead) string { return fmt.Sprint(f.pin + 1) }),
+		row(func(farLead) string { return "|" }))
+	top := "+" + strings.Repeat("-", width-1) + "+"
+	fmt.Fprintf(b, "  %s\n  |%s|\n  %s\n", top, center("", width-1), top)
+	var leads, nums, fns strings.Builder
+	for i := 0; i < near; i++ {
+		leads.WriteString(center("|", w))
+		nums.WriteString(center(fmt.Sprint(i+1), w))
+		fns.WriteString(center(p.Pins[i], w))
+	}
+	fmt.Fprintf(b, "  %s\n  %s\n  %s\n", strings.TrimRight(leads.String(), " "), strings.TrimRight(nums.String(), " "), strings.TrimRight(fns.String(), " "))
 }
 
 func center(s string, w int) string {

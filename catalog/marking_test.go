@@ -174,6 +174,7 @@ var markingCases = []markingCase{
 	{"LM345K-5.0", "345", []float64{5}, "TO-3", "National LM145/LM345 TL/H/7785: LM345K-5.0"},
 	{"LM333K", "333", nil, "TO-3", "National LM133/LM333 DS009065: LM333K STEEL"},
 	{"LM333T", "333", nil, "TO-220", "National LM133/LM333 DS009065: LM333T"},
+	{"LM78M05CH", "78Mxx", []float64{5}, "TO-39", "National LM341/LM78MXX TL/H/10484: LM78M05CH, TO-39 (H03A)"},
 	{"LT1083CK", "1083", nil, "TO-3", "Linear Technology LT1083/84/85: LT1083CK (TO-3, commercial)"},
 	{"LM2930T-5.0", "2930", []float64{5}, "TO-220", "National LM2930 DS005539: LM2930T-5.0"},
 	{"LM2930S-8.0", "2930", []float64{8}, "D2PAK", "National LM2930 DS005539: LM2930S-8.0 (TO-263)"},

@@ -163,8 +163,15 @@ func letterSuffix(long, short string) bool {
 	return strings.Trim(long[len(short):], "ABCDEFGHIJKLMNOPQRSTUVWXYZ") == ""
 }
 
+// normName is an outline name with hyphens and spaces dropped, upper case
+// ("to-220 fp" → "TO220FP").
 func normName(s string) string {
-	return strings.ToUpper(strings.NewReplacer("-", "", " ", "").Replace(s))
+	return strings.ToUpper(strings.Map(func(r rune) rune {
+		if r == '-' || r == ' ' {
+			return -1
+		}
+		return r
+	}, s))
 }
 
 // editDistanceAtMostOne reports whether a and b differ by at most one
