@@ -37,7 +37,10 @@ func TestBuiltinLintsClean(t *testing.T) {
 	// Issue #2: every family id the catalog must carry.
 	for _, id := range []string{"78xx", "78Mxx", "78Lxx", "78Sxx", "323", "309", "340", "79xx", "79Mxx", "79Lxx", "320",
 		"317", "317L", "317M", "317HV", "337", "350", "338", "783", "2940", "2937", "4940", "1117", "1084", "1085",
-		"1086", "2941", "2990", "sip3-buck"} {
+		"1086", "2941", "2990", "sip3-buck",
+		// Added with issue 11: five-lead LDOs with enable, the L200, the
+		// negative 3 A parts, the early LDO and the 7.5 A quasi-LDO.
+		"2985", "5205", "2112", "L200", "345", "333", "2930", "1083"} {
 		f := c.Family(id)
 		if f == nil {
 			t.Errorf("family %q missing", id)
@@ -48,7 +51,7 @@ func TestBuiltinLintsClean(t *testing.T) {
 		}
 	}
 	for _, o := range []string{"TO-3", "TO-204AA", "TO-66", "TO-220", "TO-220FP", "TO-202", "TO-126", "TO-92", "TO-39",
-		"DPAK", "D2PAK", "SOT-223", "SOT-89", "SO-8", "SIP-3"} {
+		"DPAK", "D2PAK", "SOT-223", "SOT-89", "SO-8", "SIP-3", "SOT-23-5", "SOT-753"} {
 		if c.Outline(o) == nil {
 			t.Errorf("outline %q missing", o)
 		}

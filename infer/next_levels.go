@@ -38,7 +38,7 @@ func leadDist(h Hypothesis, fn string, tv map[string]float64) outcomeDist {
 	f := h.Family
 	held, _ := regulated(h)
 	s := f.Signed(1)
-	if isRegulator(h) && held > 0 && f.Device != catalog.DeviceBuck {
+	if isRegulator(h) && held > 0 && f.Device != catalog.DeviceBuck && !groundReferenced(h) {
 		out, haveOut := tv[catalog.PinOut]
 		com, haveCom := common(tv)
 		switch {

@@ -26,10 +26,29 @@ func regulated(h Hypothesis) (float64, string) {
 	return h.VoutV, "output"
 }
 
-// regulationZ is how far OUT − common lies from what h holds, in allowed
+// groundReferenced reports whether h is an adjustable part with a GND lead
+// as well as ADJ (2941, L200): its reference sits between ADJ and ground and
+// the divider runs from OUT to ADJ to ground (TI LM2941 SNVS770G: VOUT =
+// VREF (R1 + R2) / R1), so the output is not OUT minus a fixed reference.
+func groundReferenced(h Hypothesis) bool {
+	return h.Family.Adjustable() && h.Package != nil &&
+		h.Package.Lead(catalog.PinAdj) > 0 && h.Package.Lead(catalog.PinGnd) > 0
+}
+
+// heldFn is the lead whose voltage against the common lead h holds: ADJ on
+// a ground-referenced adjustable part, else the output (FB on a switcher).
+func heldFn(h Hypothesis, v voltsView) string {
+	if groundReferenced(h) {
+		return catalog.PinAdj
+	}
+	return v.outFn
+}
+
+// regulationZ is how far the held lead (OUT, FB, or ADJ on a
+// ground-referenced part) less common lies from what h holds, in allowed
 // errors (tolerance plus twice the meter error).
 func regulationZ(h Hypothesis, v voltsView) (z, d, want, allowed float64) {
-	d = v.out - v.com
+	d = v.tv[heldFn(h, v)] - v.com
 	want, _ = regulated(h)
 	allowed = h.Family.Tolerance*want + 2*(meterAbsV+meterRel*math.Abs(d))
 	return math.Abs(d-v.sign*want) / allowed, d, want, allowed
@@ -45,7 +64,8 @@ func headroomOK(h Hypothesis, v voltsView) bool {
 // off while the input leaves room to regulate, it is an output the part
 // cannot make: a near-veto.
 func termRegulation(_ *scene, h Hypothesis, v voltsView, r *reasons) {
-	if !isRegulator(h) || !v.haveOut || !v.haveCom || (h.VoutV == 0 && !h.Family.Adjustable()) {
+	held := heldFn(h, v)
+	if _, ok := v.tv[held]; !isRegulator(h) || !ok || !v.haveCom || (h.VoutV == 0 && !h.Family.Adjustable()) {
 		return
 	}
 	f := h.Family
@@ -53,10 +73,10 @@ func termRegulation(_ *scene, h Hypothesis, v voltsView, r *reasons) {
 	_, what := regulated(h)
 	com := f.Common(h.Package)
 	if z > vetoZ && (headroomOK(h, v) || !v.haveIn) {
-		r.veto("voltages.regulation", "%s − %s = %+.3f V, but this part holds %+.3f V ±%.3f there", v.outFn, com, d, v.sign*want, allowed)
+		r.veto("voltages.regulation", "%s − %s = %+.3f V, but this part holds %+.3f V ±%.3f there", held, com, d, v.sign*want, allowed)
 		return
 	}
-	r.add("voltages.regulation", window(z), 0.05, "%s − %s = %+.3f V; the %s is %+.3f V ±%.3f", v.outFn, com, d, what, v.sign*want, allowed)
+	r.add("voltages.regulation", window(z), 0.05, "%s − %s = %+.3f V; the %s is %+.3f V ±%.3f", held, com, d, what, v.sign*want, allowed)
 }
 
 // lift returns the voltage a diode string or zener in the common lead
