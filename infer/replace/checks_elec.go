@@ -79,9 +79,8 @@ func checkVout(in Input, c cand) (Check, bool) {
 func checkLifted(in Input, c cand, nom float64, ch *Check) {
 	f, n, target := c.Family, in.Network, in.Cond.VoutV
 	s := f.SignText()
-	got := nom + n.Lift(nom, iqTypA(f))
-	hi := nom + n.Lift(nom, f.GroundCurrentA(in.Cond.LoadMaxA))
-	d := math.Max(math.Abs(got-target), math.Abs(hi-target)) / target
+	p := planLift(&in, c, nom)
+	got, hi, d := p.got, p.hi, p.d
 	ch.Value, ch.ValueText = num(f.Signed(got)), fmt.Sprintf("%s%.2f V (up to %s%.2f V)", s, got, s, hi)
 	ch.LimitText += " ±5 %"
 	ch.Margin = 1 - d/0.05
@@ -95,54 +94,90 @@ func checkLifted(in Input, c cand, nom float64, ch *Check) {
 	default:
 		ch.Status = Work
 	}
-	if ch.Status == Pass || !n.Resistors() {
+	switch {
+	case ch.Status == Pass:
+	case !n.Resistors():
 		if ch.Status == Work {
 			ch.Status = Fail // diodes or a zener: nothing to retune
 		}
-		return
-	}
-	// A ground current that rises with load moves the output by the rise
-	// times the bottom resistor; no bottom resistor narrows that spread. It
-	// can only centre it in the ±5 % window: with the mean of the typical
-	// and the full-load ground current (the resistors' equation as in
-	// [Network.Lift]).
-	if (hi-got)/target > 0.10 {
+	case p.spread:
 		ch.Status = Fail
 		ch.Margin = math.Min(ch.Margin, 1-(hi-got)/target/0.10)
 		ch.Text += fmt.Sprintf("; its ground current rises with load, which moves the output by %.2f V through the %s bottom resistor, more than the ±5 %% window: no resistor value fixes a spread; keep a part with a steady ground current (an NPN-pass regulator)", hi-got, ohms(n.RBottomOhm))
-		return
-	}
-	imid := (iqTypA(f) + f.GroundCurrentA(in.Cond.LoadMaxA)) / 2
-	r2 := (target - n.BottomV - nom) / (nom/n.RTopOhm + imid)
-	lo, hi2, ok := circuit.Nearest(circuit.Values(circuit.E24, 1, 1e6), r2)
-	if !ok || r2 <= 0 {
-		return
-	}
-	best := lo
-	if math.Abs(hi2-r2) < math.Abs(lo-r2) {
-		best = hi2
-	}
-	nn := *n
-	nn.RBottomOhm = best
-	gotN, hiN := nom+nn.Lift(nom, iqTypA(f)), nom+nn.Lift(nom, f.GroundCurrentA(in.Cond.LoadMaxA))
-	dN := math.Max(math.Abs(gotN-target), math.Abs(hiN-target)) / target
-	switch {
-	case math.Abs(best-n.RBottomOhm) < 1e-9 || dN >= d:
+	case p.best == 0:
+	case p.same:
 		if ch.Status == Work {
 			ch.Status = Fail // the present resistor is already the best
 			ch.Text += "; no E24 bottom resistor brings it inside ±5 %"
 		}
-	case dN <= 0.05:
-		ch.Text += fmt.Sprintf("; a bottom resistor of %s centres it (%s%.2f to %s%.2f V)", ohms(best), s, gotN, s, hiN)
+	case p.dN <= 0.05:
+		ch.Text += fmt.Sprintf("; a bottom resistor of %s centres it (%s%.2f to %s%.2f V)", ohms(p.best), s, p.gotN, s, p.hiN)
 		if ch.Status == Work {
-			ch.Action = fmt.Sprintf("resistors: change the common-lead resistor from %s to %s to centre the output on %s%.2f V", ohms(n.RBottomOhm), ohms(best), s, target)
+			ch.Action = fmt.Sprintf("resistors: change the common-lead resistor from %s to %s to centre the output on %s%.2f V", ohms(n.RBottomOhm), ohms(p.best), s, target)
 		}
 	default:
 		if ch.Status == Work {
 			ch.Status = Fail
-			ch.Text += fmt.Sprintf("; even the best E24 bottom resistor (%s) leaves %s%.2f to %s%.2f V, outside ±5 %%", ohms(best), s, gotN, s, hiN)
+			ch.Text += fmt.Sprintf("; even the best E24 bottom resistor (%s) leaves %s%.2f to %s%.2f V, outside ±5 %%", ohms(p.best), s, p.gotN, s, p.hiN)
 		}
 	}
+}
+
+// liftPlan is what a fixed candidate makes on the old lifted-ground network
+// and what retuning its bottom resistor can do.
+type liftPlan struct {
+	got, hi float64 // output with the typical and the full-load ground current
+	d       float64 // the larger deviation from the target, fraction
+	// spread: the ground current's rise with load alone moves the output by
+	// more than the ±5 % window, which no resistor narrows.
+	spread bool
+	// best is the E24 bottom resistor that centres the output (0 = none
+	// found); gotN, hiN and dN are the output range and deviation with it;
+	// same: it is the resistor already fitted, or no better.
+	best, gotN, hiN, dN float64
+	same                bool
+}
+
+// retuned reports whether the plan changes the bottom resistor (the vout
+// check's work): the part is off by more than 5 % and the new resistor
+// brings it inside.
+func (p liftPlan) retuned() bool {
+	return p.d > 0.05 && !p.spread && p.best > 0 && !p.same && p.dN <= 0.05
+}
+
+// planLift works out the lifted output of a fixed candidate with nominal
+// nom, and the bottom resistor that centres it. A ground current that rises
+// with load moves the output by the rise times the bottom resistor; no
+// resistor narrows that spread, it can only centre it in the ±5 % window,
+// with the mean of the typical and the full-load ground current (the
+// resistors' equation as in [Network.Lift]).
+func planLift(in *Input, c cand, nom float64) liftPlan {
+	f, n, target := c.Family, in.Network, in.Cond.VoutV
+	ityp, imax := iqTypA(f), f.GroundCurrentA(in.Cond.LoadMaxA)
+	p := liftPlan{got: nom + n.Lift(nom, ityp), hi: nom + n.Lift(nom, imax)}
+	p.d = math.Max(math.Abs(p.got-target), math.Abs(p.hi-target)) / target
+	if !n.Resistors() {
+		return p
+	}
+	if (p.hi-p.got)/target > 0.10 {
+		p.spread = true
+		return p
+	}
+	r2 := (target - n.BottomV - nom) / (nom/n.RTopOhm + (ityp+imax)/2)
+	lo, hi2, ok := circuit.Nearest(circuit.Values(circuit.E24, 1, 1e6), r2)
+	if !ok || r2 <= 0 {
+		return p
+	}
+	p.best = lo
+	if math.Abs(hi2-r2) < math.Abs(lo-r2) {
+		p.best = hi2
+	}
+	nn := *n
+	nn.RBottomOhm = p.best
+	p.gotN, p.hiN = nom+nn.Lift(nom, ityp), nom+nn.Lift(nom, imax)
+	p.dN = math.Max(math.Abs(p.gotN-target), math.Abs(p.hiN-target)) / target
+	p.same = math.Abs(p.best-n.RBottomOhm) < 1e-9 || p.dN >= p.d
+	return p
 }
 
 func checkCurrent(in Input, c cand) (Check, bool) {

@@ -171,8 +171,21 @@ func afterPowerUp(in Input, c cand) []string {
 		tcase = cd.AmbientC + c.powerW*theta*0.8 // the body runs a little below the junction (common practice, no source)
 	}
 	s := c.Family.SignText()
+	out := fmt.Sprintf("%s%.2f V ±%g %% at full load", s, c.outV, c.Family.Tolerance*100)
+	if in.Lifted && !c.Family.Adjustable() && !c.Family.Switching() {
+		// On the lifted ground the output moves with the ground current:
+		// say the range to expect (with the new bottom resistor, if any).
+		p := planLift(&in, c, c.VoutV)
+		lo, hi := p.got, p.hi
+		if p.retuned() {
+			lo, hi = p.gotN, p.hiN
+		}
+		if math.Abs(hi-lo) >= 0.005 {
+			out = fmt.Sprintf("%s%.2f V (a typical part, light load) to %s%.2f V (worst case, full load) as the ground current lifts it, with the part's own ±%g %% (±%.2f V) on top", s, lo, s, hi, c.Family.Tolerance*100, c.Family.Tolerance*c.VoutV)
+		}
+	}
 	return []string{
-		fmt.Sprintf("after power-up: output %s%.2f V ±%g %% at full load; ripple at the output a few mV (a scope, AC-coupled)", s, c.outV, c.Family.Tolerance*100),
+		fmt.Sprintf("after power-up: output %s; ripple at the output a few mV (a scope, AC-coupled)", out),
 		fmt.Sprintf("after 10 minutes at full load: case about %.0f °C (expect within 10 °C); do not touch it bare-handed", tcase),
 	}
 }
