@@ -22,10 +22,13 @@ type Hypothesis struct {
 
 // Label returns "family package vout", e.g. "78xx TO-220 5 V"; a package
 // variant that shares its outline with another is named in brackets.
-func (h Hypothesis) Label() string {
+func (h Hypothesis) Label() string { return h.labelWith(h.Package.Variant) }
+
+// labelWith is the label with variant named in brackets ("" for none).
+func (h Hypothesis) labelWith(variant string) string {
 	s := h.Family.ID + " " + h.Package.Outline
-	if h.Package.Variant != "" {
-		s += " (" + h.Package.Variant + ")"
+	if variant != "" {
+		s += " (" + variant + ")"
 	}
 	if h.VoutV > 0 {
 		s += fmt.Sprintf(" %s%s V", h.Family.SignText(), trimFloat(h.VoutV))
@@ -49,8 +52,23 @@ type Candidate struct {
 	Score       float64  // sum of the reasons' weights
 	Probability float64  // posterior probability, 0 to 1
 	Reasons     []Reason // the terms of Score, prior first
+	// Variants are the other package variants that look the same on the
+	// board (same outline, pinout and tab; another rating or maker), ranked
+	// with this one: see the last prior reason.
+	Variants []*catalog.Package
 
-	label string // Label(), kept
+	label string  // Label(), kept
+	share float64 // with Variants: this variant's share of the look-alikes
+}
+
+// Label is the hypothesis's label; a candidate that stands for look-alike
+// variants names its own only when the evidence gives it nine tenths of
+// their mass or more.
+func (c Candidate) Label() string {
+	if len(c.Variants) > 0 && c.share < 0.9 {
+		return c.labelWith("")
+	}
+	return c.Hypothesis.Label()
 }
 
 // name returns the candidate's label, formatted once.
@@ -159,6 +177,7 @@ func Identify(c *catalog.Catalog, ev *Evidence, opts Options) (*Result, error) {
 		cands[i] = Candidate{Hypothesis: h, Score: score, Reasons: rs}
 	}
 	res.PriorOnly = !evidenceUsed
+	cands = mergeVariants(cands)
 	res.NotInCatalogScore = math.Log(pNICPrior / (1 - pNICPrior) * priorMass)
 	res.Candidates, res.NotInCatalog = rank(cands, res.NotInCatalogScore)
 	// Texts for the leaders.
@@ -170,7 +189,11 @@ func Identify(c *catalog.Catalog, ev *Evidence, opts Options) (*Result, error) {
 		}
 		for i := 0; i < min(len(res.Candidates), max(n, defaultExplain)); i++ {
 			cd := &res.Candidates[i]
-			cd.Reasons = append(priorReasons(cd.Hypothesis, ev, c, true), sc.likelihoods(cd.Hypothesis)...)
+			var merged []Reason
+			if n := len(cd.Reasons); len(cd.Variants) > 0 {
+				merged = cd.Reasons[n-1:] // the look-alikes' prior reason stays last
+			}
+			cd.Reasons = append(append(priorReasons(cd.Hypothesis, ev, c, true), sc.likelihoods(cd.Hypothesis)...), merged...)
 		}
 	}
 	res.Conflicts = sc.conflicts(res)

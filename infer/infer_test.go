@@ -353,3 +353,38 @@ volts = 9.0
 	fmt.Printf("%s %.2f\n", res.Candidates[0].Label(), res.Candidates[0].Probability)
 	// Output: 78Lxx TO-92 5 V 0.81
 }
+
+// TestLookAlikeVariantsRankAsOne: variants of one family that share the
+// outline, pinout and tab (the two 1117 SOT-223 ratings) are one
+// candidate whose score is still the sum of its reasons and whose label
+// names a variant only when the evidence separates them (a 0.9 A load rules
+// out National's 0.5 A 317 DPAK: LM317 datasheet, MDT current limit 0.5 A
+// minimum).
+func TestLookAlikeVariantsRankAsOne(t *testing.T) {
+	c := builtinCatalog(t)
+	for _, tc := range []struct{ file, label string }{
+		{"../testdata/infer/sot223-1117-33.toml", "1117 SOT-223 3.3 V"},
+		{"../testdata/infer/dpak-317-load-separates.toml", "317 DPAK (1.5 A TI KVU) 5 V"},
+	} {
+		res, err := infer.Identify(c, load(t, c, tc.file), infer.Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		lead := res.Candidates[0]
+		if lead.Label() != tc.label || len(lead.Variants) != 1 {
+			t.Errorf("%s: leader %q with %d look-alikes, want %q with 1", tc.file, lead.Label(), len(lead.Variants), tc.label)
+		}
+		sum := 0.0
+		for _, r := range lead.Reasons {
+			sum += r.Weight
+		}
+		if math.Abs(sum-lead.Score) > 1e-9 {
+			t.Errorf("%s: score %g, reasons sum to %g", tc.file, lead.Score, sum)
+		}
+		for _, cd := range res.Candidates[1:] {
+			if cd.Family == lead.Family && cd.Package.Outline == lead.Package.Outline && cd.VoutV == lead.VoutV {
+				t.Errorf("%s: look-alike %s ranked apart from %s", tc.file, cd.Label(), lead.Label())
+			}
+		}
+	}
+}

@@ -28,12 +28,21 @@ func priorReasons(h Hypothesis, ev *Evidence, c *catalog.Catalog, text bool) []R
 		return fmt.Sprintf(format, args...)
 	}
 	rs := []Reason{{"prior", float64(f.Commonness-1) * math.Log(3), say("commonness %d of 5", f.Commonness)}}
-	total := 0.0
+	// Each outline carries its weight once, shared by the variants sold in
+	// it (two ratings of one SOT-223 carry the mass one would).
+	total, variants := 0.0, 0
+	seen := map[string]bool{}
 	for _, p := range f.Packages {
-		total += c.Outline(p.Outline).Weight()
+		if !seen[p.Outline] {
+			seen[p.Outline] = true
+			total += c.Outline(p.Outline).Weight()
+		}
+		if p.Outline == h.Package.Outline {
+			variants++
+		}
 	}
-	share := h.Outline.Weight() / total
-	pkgShare := share
+	pkgShare := h.Outline.Weight() / total
+	share := pkgShare / float64(max(1, variants))
 	vs := 1.0
 	if nv > 1 {
 		sum := 0.0
@@ -44,6 +53,9 @@ func priorReasons(h Hypothesis, ev *Evidence, c *catalog.Catalog, text bool) []R
 		share *= vs
 	}
 	t := say("%s is %.0f %% of %s's packages", h.Package.Outline, 100*pkgShare, f.ID)
+	if variants > 1 && text {
+		t += say(", shared by its %d variants", variants)
+	}
 	if nv > 1 && text {
 		t += say("; %s V is %.0f %% of its voltages", trimFloat(h.VoutV), 100*vs)
 	}

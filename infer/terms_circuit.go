@@ -75,15 +75,16 @@ func termCurrent(sc *scene, h Hypothesis, v voltsView, r *reasons) {
 func termInputMax(sc *scene, h Hypothesis, v voltsView, r *reasons) {
 	f := h.Family
 	il := f.InputLimit(h.VoutV)
-	limit, what := il.RunV, il.What
-	if f.NonRegulator() {
-		what = "voltage rating"
-	}
-	if f.Adjustable() && h.VoutV > 0 && limit > il.StartV {
-		what += " plus the output"
-	}
+	limit := il.RunV
 	if limit <= 0 {
 		return
+	}
+	lim := fmt.Sprintf("%.0f V %s", limit, il.What)
+	switch {
+	case f.NonRegulator():
+		lim = fmt.Sprintf("%.0f V voltage rating", limit)
+	case f.Adjustable() && h.VoutV > 0 && limit > il.StartV:
+		lim = fmt.Sprintf("%.0f V limit (the %.0f V %s plus the %.3g V output)", limit, il.StartV, il.What, h.VoutV)
 	}
 	if sc.input.Source == InputUnknown {
 		if !v.haveIn || v.in == 0 {
@@ -92,13 +93,13 @@ func termInputMax(sc *scene, h Hypothesis, v voltsView, r *reasons) {
 		read, bound := math.Abs(v.in), sc.input.PeakFor(v.in).V
 		switch {
 		case read > limit:
-			r.add("input_max", overLimit(read/limit), 0.5, "input %.1f V measured, %s the %s %.0f V", read, overWords(read/limit), what, limit)
+			r.add("input_max", overLimit(read/limit), 0.5, "input %.1f V measured, %s the %s", read, overWords(read/limit), lim)
 		case bound > limit:
 			// The part has run on the reading; only the assumed rise
 			// (high mains, light load) takes it over.
-			r.add("input_max", 0.35, 0.5, "input peak %.1f V at most, a bound from the %.1f V reading at high mains and light load: over the %s %.0f V, but the part runs on the %.1f V measured, so the bound weighs lightly", bound, read, what, limit, read)
+			r.add("input_max", 0.35, 0.5, "input peak %.1f V at most, a bound from the %.1f V reading at high mains and light load: over the %s, but the part runs on the %.1f V measured, so the bound weighs lightly", bound, read, lim, read)
 		default:
-			r.add("input_max", 0.9, 0.5, "input peak %.1f V at most, a bound from the %.1f V reading at high mains and light load: within the %s %.0f V", bound, read, what, limit)
+			r.add("input_max", 0.9, 0.5, "input peak %.1f V at most, a bound from the %.1f V reading at high mains and light load: within the %s", bound, read, lim)
 		}
 		return
 	}
@@ -108,10 +109,10 @@ func termInputMax(sc *scene, h Hypothesis, v voltsView, r *reasons) {
 	}
 	q := peak / limit
 	if q <= 1 {
-		r.add("input_max", 0.9, 0.5, "input peak %.1f V (%s) within the %s %.0f V", peak, from, what, limit)
+		r.add("input_max", 0.9, 0.5, "input peak %.1f V (%s) within the %s", peak, from, lim)
 		return
 	}
-	r.add("input_max", overLimit(q), 0.5, "input peak %.1f V (%s) %s the %s %.0f V", peak, from, overWords(q), what, limit)
+	r.add("input_max", overLimit(q), 0.5, "input peak %.1f V (%s) %s the %s", peak, from, overWords(q), lim)
 }
 
 // overLimit is the chance of an input q times the part's limit (q > 1):
