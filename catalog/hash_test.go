@@ -1,6 +1,7 @@
 package catalog_test
 
 import (
+	"fmt"
 	"os"
 	"testing"
 
@@ -42,4 +43,39 @@ func TestHashIsContent(t *testing.T) {
 	if len(builtin.Catalog().Hash()) != 64 {
 		t.Error("not a hex SHA-256")
 	}
+}
+
+// Hash covers a catalog's content, not where its files were read from: the
+// record names it so that a later reader can tell which figures were used.
+func ExampleCatalog_Hash() {
+	data := []byte(`[[family]]
+id = "shop-5v"
+title = "the shop's own 5 V module"
+polarity = "positive"
+kind = "fixed"
+outputs_v = [5]
+tolerance = 0.05
+current_a = 0.5
+vin_max_v = 30
+dropout_v = 2
+tj_max_c = 125
+status = "active"
+commonness = 1
+source = "example"
+  [[family.package]]
+  outline = "TO-220"
+  pins = ["IN", "GND", "OUT"]
+  tab = "GND"
+  theta_jc = 5
+  theta_ja = 50
+`)
+	base, _ := builtin.Files()
+	a, errs := catalog.Load("/home/ann/catalog/shop.toml", data)
+	b, _ := catalog.Load("/mnt/bench/copy.toml", data)
+	fmt.Println(errs)
+	x, y := catalog.Merge(append(base, a)...), catalog.Merge(append(base, b)...)
+	fmt.Println(len(x.Hash()), x.Hash() == y.Hash(), x.Hash() == builtin.Catalog().Hash())
+	// Output:
+	// no errors
+	// 64 true false
 }

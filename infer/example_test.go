@@ -50,3 +50,27 @@ amps = 0.5
 	// source rectifier, nominal trough 12.5 V
 	// worst trough 10.6 V at low mains, full load, low C
 }
+
+// Evidence built in Go (a second front end's form, say) is checked with
+// Check before use, as LoadEvidence checks a file; Lead and Leads read the
+// Pins map directly.
+func ExampleEvidence_Check() {
+	c := builtin.Catalog()
+	ev := &infer.Evidence{
+		File:    "form",
+		Package: "TO-220",
+		Pins: map[string]infer.PinEvidence{
+			"1": {WiredTo: infer.WiredUnregulated, Volts: infer.Volts{V: 11.8, Set: true}},
+			"3": {WiredTo: infer.WiredLoad, Volts: infer.Volts{V: 5.02, Set: true}},
+		},
+	}
+	fmt.Println(ev.Check(c))
+	p, _ := ev.Lead(3)
+	fmt.Println(ev.Leads(), p.WiredTo, p.Volts.V)
+	ev.Pins["7"] = infer.PinEvidence{WiredTo: infer.WiredGround}
+	fmt.Println(ev.Check(c))
+	// Output:
+	// <nil>
+	// [1 3] load 5.02
+	// form: pins.7: lead 7: the package has only 3 leads (numbered by the convention 'whichreg catalog show' draws)
+}

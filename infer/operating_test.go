@@ -77,3 +77,40 @@ func TestOperatingNoSteadyState(t *testing.T) {
 		t.Errorf("the error does not name the file, table and corner: %v", err)
 	}
 }
+
+// TestOperatingReconcile: a reading of the IN lead that the described
+// rectifier cannot produce sets the model aside for the bound from the
+// reading and says why; a reading inside the model's envelope changes
+// nothing. testdata/swap/why-input-conflict.toml gives a 9 V secondary
+// (the model's highest input 12.6 V) and reads 21.0 V; the bound from 21.0 V
+// is 28.77 V at its highest and 15.39 V at its lowest (the hand calculation
+// in that file).
+func TestOperatingReconcile(t *testing.T) {
+	c := builtinCatalog(t)
+	ev := load(t, c, "../testdata/swap/why-input-conflict.toml")
+	op, err := infer.OperatingPoint(ev, infer.OperatingOptions{Sweep: infer.SweepAll, AssumedLoadA: 1})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if op.Source != infer.InputRectifier {
+		t.Fatalf("source %s", op.Source)
+	}
+	if same, why := op.Reconcile(op.Nominal.MeanV); why != "" || same.Source != infer.InputRectifier {
+		t.Errorf("a reading at the model's own mean is a conflict: %q", why)
+	}
+	r, why := op.Reconcile(21.0)
+	if r.Source != infer.InputReading || !strings.Contains(why, "contradict") || r.Corners != nil {
+		t.Fatalf("21.0 V against a %.1f V model: source %s, %q", op.Peak.V, r.Source, why)
+	}
+	if math.Abs(r.Peak.V-28.77) > 0.01 || math.Abs(r.Trough.V-15.39) > 0.01 {
+		t.Errorf("bound from 21.0 V: peak %.3f trough %.3f, want 28.77 and 15.39", r.Peak.V, r.Trough.V)
+	}
+	for _, a := range r.Assumptions {
+		if strings.Contains(a, "1N4007") {
+			t.Errorf("the set-aside model's assumption kept: %q", a)
+		}
+	}
+	if low, why := op.Reconcile(0.5 * op.MeanLow.V); low.Source != infer.InputReading || !strings.Contains(why, "below") {
+		t.Errorf("a reading at half the lowest mean: %s, %q", low.Source, why)
+	}
+}
