@@ -207,16 +207,6 @@ func termHeadroom(sc *scene, h Hypothesis, v voltsView, r *reasons) {
 	}
 }
 
-// loadFraction is the load as a fraction of h's rating, 0 when not given.
-func loadFraction(ev *Evidence, h Hypothesis) float64 {
-	if ev.Output == nil || !ev.Output.Amps.Set {
-		return 0
-	}
-	if r := h.Family.Current(h.Package); r > 0 {
-		return math.Min(1, ev.Output.Amps.V/r)
-	}
-	return 0
-}
 
 // termBenchDropout weighs a measured dropout (the input lowered on a bench
 // supply until the output falls) against the family's. A classic or
