@@ -73,8 +73,8 @@ func (d Diode) vt() float64 {
 // regulator draws its load current whatever its input), a resistance, or
 // nothing (both zero).
 type Load struct {
-	Amps float64 // constant current, A; used when > 0
-	Ohms float64 // resistance, Ω; used when Amps is 0 and Ohms > 0
+	Amps float64 `json:"a"`   // constant current, A; used when > 0
+	Ohms float64 `json:"ohm"` // resistance, Ω; used when Amps is 0 and Ohms > 0
 }
 
 // Rectifier is a transformer secondary, rectifier, filter capacitor and load.

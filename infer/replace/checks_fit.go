@@ -116,8 +116,9 @@ func checkPinout(in Input, c cand) (Check, bool) {
 
 // Link joins one terminal of the new part to the old part's pad.
 type Link struct {
-	New, Old int    // terminal numbers, 1-based (the can is the last terminal); Old 0 = no counterpart
-	Fn       string // the function
+	New int    `json:"new"`      // the candidate's terminal, 1-based (the can is the last terminal)
+	Old int    `json:"old"`      // the old part's terminal it goes to; 0 = no counterpart
+	Fn  string `json:"function"` // the function
 }
 
 // LeadMap returns, for each terminal of the candidate, the old terminal

@@ -12,23 +12,23 @@ import (
 // Conditions are the circuit's numbers every check uses (magnitudes; the
 // original's polarity gives the sign).
 type Conditions struct {
-	VoutV       float64           `json:"vout_v"`       // target output
-	LoadMaxA    float64           `json:"load_max_a"`   // full load, given or assumed
-	LoadAssumed bool              `json:"load_assumed"` // the full load was not given (see the assumptions)
-	LoadMinA    float64           `json:"load_min_a"`   // lightest load
-	Source      infer.InputSource `json:"input_source"` // rectifier, dc, reading
-	TroughV     float64           `json:"trough_v"`     // lowest input: low mains, full load, low C
-	TroughAt    string            `json:"trough_at"`    // the corner or measurement it comes from
-	PeakV       float64           `json:"peak_v"`       // highest input: high mains, light load
-	PeakAt      string            `json:"peak_at"`      //
-	HotInV      float64           `json:"hot_in_v"`     // mean input at high mains, full load
-	ColdInV     float64           `json:"cold_in_v"`    // mean input at low mains, full load
-	TransientV  float64           `json:"transient_v"`  // a surge the part must survive; 0 = none stated
-	AmbientC    float64           `json:"ambient_c"`    //
-	HeatsinkCW  float64           `json:"heatsink_c_w"` // θSA; 0 = free air (no heat sink)
-	Insulator   string            `json:"insulator"`    // the old part's insulator
-	Grounded    bool              `json:"grounded"`     // heat sink bonded to chassis/ground (or not known: taken as bonded)
-	BypassOhm   float64           `json:"bypass_ohm"`   // 0 = none
+	VoutV       float64           `json:"vout_v"`           // target output
+	LoadMaxA    float64           `json:"load_max_a"`       // full load, given or assumed
+	LoadAssumed bool              `json:"load_assumed"`     // the full load was not given (see the assumptions)
+	LoadMinA    float64           `json:"load_min_a"`       // lightest load
+	Source      infer.InputSource `json:"input_source"`     // rectifier, dc, reading
+	TroughV     float64           `json:"trough_v"`         // lowest input: low mains, full load, low C
+	TroughAt    string            `json:"trough_at"`        // the corner or measurement it comes from
+	PeakV       float64           `json:"peak_v"`           // highest input: high mains, light load
+	PeakAt      string            `json:"peak_at"`          //
+	HotInV      float64           `json:"hot_in_v"`         // mean input at high mains, full load
+	ColdInV     float64           `json:"cold_in_v"`        // mean input at low mains, full load
+	TransientV  float64           `json:"transient_v"`      // a surge the part must survive; 0 = none stated
+	AmbientC    float64           `json:"ambient_c"`        //
+	HeatsinkCW  float64           `json:"heatsink_c_per_w"` // θSA; 0 = free air (no heat sink)
+	Insulator   string            `json:"insulator"`        // the old part's insulator
+	Grounded    bool              `json:"grounded"`         // heat sink bonded to chassis/ground (or not known: taken as bonded)
+	BypassOhm   float64           `json:"bypass_ohm"`       // 0 = none
 	// InputConflict says why the [input] description was set aside for the
 	// IN lead's reading ("" when they agree or only one is given).
 	InputConflict string `json:"input_conflict,omitempty"`

@@ -61,6 +61,8 @@ type ErrorList []*Error
 
 // Locator finds where a key is written; [Index] and [*Lazy] are Locators.
 type Locator interface {
+	// Nearest returns the entry for the dotted key path or, failing that,
+	// for its longest prefix that has one; the zero Entry when none does.
 	Nearest(path string) Entry
 }
 
