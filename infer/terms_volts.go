@@ -207,7 +207,6 @@ func termHeadroom(sc *scene, h Hypothesis, v voltsView, r *reasons) {
 	}
 }
 
-
 // termBenchDropout weighs a measured dropout (the input lowered on a bench
 // supply until the output falls) against the family's. A classic or
 // quasi-LDO part drops out between half its datasheet worst case and a
