@@ -22,6 +22,8 @@ func (sc *scene) conflicts(res *Result) []string {
 	out = append(out, sc.reversedLeads(res)...)
 	out = append(out, sc.mirrorSlip(res)...)
 	out = append(out, sc.unitSlips()...)
+	outline := sc.leaderOutline(res)
+	out = append(out, outline...)
 	// Voltages that fit no regulator's pinout at all.
 	regs, reversed := 0, 0
 	for _, c := range res.Candidates {
@@ -47,7 +49,7 @@ func (sc *scene) conflicts(res *Result) []string {
 	nicLeads := len(lead) > 0 && lead[0].Probability < res.NotInCatalog
 	if len(lead) > 0 {
 		for _, r := range lead[0].Reasons {
-			if r.Weight > -2 || r.Evidence == "prior" || r.Evidence == "year" || r.Evidence == "voltages.headroom" && allReversed {
+			if r.Weight > -2 || r.Evidence == "prior" || r.Evidence == "year" || r.Evidence == "voltages.headroom" && allReversed || r.Evidence == "package" && len(outline) > 0 {
 				continue
 			}
 			all := true
@@ -136,6 +138,22 @@ func (sc *scene) packageSlip() []string {
 	}
 	return []string{fmt.Sprintf("package %s is named but %d leads were counted: the ranking uses the measured outline; the package name looks wrong%s",
 		sc.ev.Package, n, also)}
+}
+
+// leaderOutline: the leader's outline is not the package named (the name
+// is taken as a possible slip, so the ranking may still lead with another
+// outline): say so, so that the outline gets a second look.
+func (sc *scene) leaderOutline(res *Result) []string {
+	ev := sc.ev
+	if ev.Package == "" || len(res.Candidates) == 0 || sc.packageContradicted() || res.Candidates[0].Probability < res.NotInCatalog {
+		return nil
+	}
+	lead := res.Candidates[0]
+	if lead.Outline == nil || namesOutline(ev.Package, lead.Outline) {
+		return nil
+	}
+	return []string{fmt.Sprintf("package %s is named, but the leader is %s: no %s part in the catalog fits the readings as well; look at the outline again ('whichreg catalog show %s' draws it)",
+		ev.Package, lead.name(), ev.Package, lead.Family.ID)}
 }
 
 // inputLead returns the reading of the part's input: a lead wired to the

@@ -92,6 +92,8 @@ func termInputMax(sc *scene, h Hypothesis, v voltsView, r *reasons) {
 		}
 		read, bound := math.Abs(v.in), sc.input.PeakFor(v.in).V
 		switch {
+		case read > readingVetoQ*limit:
+			r.veto("input_max", "input %.1f V measured, far over the %s: the part could not have run on it", read, lim)
 		case read > limit:
 			r.add("input_max", overLimit(read/limit), 0.5, "input %.1f V measured, %s the %s", read, overWords(read/limit), lim)
 		case bound > limit:
@@ -114,6 +116,12 @@ func termInputMax(sc *scene, h Hypothesis, v voltsView, r *reasons) {
 	}
 	r.add("input_max", overLimit(q), 0.5, "input peak %.1f V (%s) %s the %s", peak, from, overWords(q), lim)
 }
+
+// readingVetoQ is how far over its running limit a measured input must be
+// before the part could not have been running on it: parts survive a
+// little over their absolute maximum, not a third over it for years
+// (common practice, no source).
+const readingVetoQ = 1.3
 
 // overLimit is the chance of an input q times the part's limit (q > 1):
 // a little over it parts often survive, far over it they do not (common
