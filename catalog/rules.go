@@ -13,6 +13,32 @@ import "math"
 // maximum (a 1117 at 100 mA needs its 1.2–1.4 V, not a scaled-down figure).
 func (f *Family) HeadroomNeeded() float64 { return f.DropoutV }
 
+// lightDropoutFloor is the least fraction of the rated-current dropout a
+// PNP or P-MOS pass LDO needs at light load: National LM2940, 1.0 V max at
+// 1 A and 0.2 V max at 100 mA over temperature (shared/reference
+// adjustable.md).
+const lightDropoutFloor = 0.2
+
+// HeadroomAt returns the headroom the family in package p (whose rating
+// may differ from the family's) needs at load current loadA (amperes; 0 or
+// less when unknown, giving [Family.HeadroomNeeded]). An
+// NPN pass element needs its figure at any load (makers guarantee nothing
+// lower). A PNP or P-MOS pass LDO's dropout is the pass element's
+// saturation voltage or on-resistance times the current, so it falls with
+// the load: the rated figure scaled by loadA over the rating, never below
+// lightDropoutFloor of it (the LM2940's own light-load maximum).
+func (f *Family) HeadroomAt(p *Package, loadA float64) float64 {
+	rated := f.Current(p)
+	if loadA <= 0 || rated <= 0 || (f.Pass != PassPNP && f.Pass != PassPMOS) {
+		return f.HeadroomNeeded()
+	}
+	return f.HeadroomNeeded() * math.Min(1, math.Max(lightDropoutFloor, loadA/rated))
+}
+
+// ScalesDropout reports whether the family's dropout falls with the load
+// (PNP and P-MOS pass LDOs; see [Family.HeadroomAt]).
+func (f *Family) ScalesDropout() bool { return f.Pass == PassPNP || f.Pass == PassPMOS }
+
 // pnpDriveFraction is the part of the load current a PNP-pass LDO's drive
 // adds to its ground current: National LM2940 (shared/reference
 // adjustable.md: 15 mA max at 5 mA, 60 mA max at 1 A over temperature,

@@ -293,11 +293,8 @@ func dropoutAsk(ev *Evidence) measurement {
 			if !isRegulator(h) {
 				return outcomeDist{dropoutBucket(0.3): 1}
 			}
-			d := h.Family.HeadroomNeeded() * typicalHeadroom
-			if h.Family.Pass == "pnp" {
-				d *= math.Max(0.2, loadFraction(ev, h))
-			}
-			return outcomeDist{dropoutBucket(d): 1}
+			d, _ := headroomNeed(h, ev)
+			return outcomeDist{dropoutBucket(d * typicalHeadroom): 1}
 		},
 		describe: func(key string) string { return "drops out at " + key },
 		effort:   benchEffort,
@@ -375,7 +372,8 @@ func troughAsk(ev *Evidence) *measurement {
 				return outcomeDist{"unknown": 1}
 			}
 			mean := math.Abs(vin - vout)
-			need := h.Family.HeadroomNeeded() * typicalHeadroom
+			need, _ := headroomNeed(h, ev)
+			need *= typicalHeadroom
 			if mean <= need {
 				return outcomeDist{troughBucket(mean): 1}
 			}

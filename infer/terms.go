@@ -93,7 +93,7 @@ func (r *reasons) settle() {
 	v := &r.rs[r.vetoAt]
 	v.Weight -= support
 	if r.text {
-		v.Text += fmt.Sprintf(" (outweighs the %+.2f the other evidence gives)", support)
+		v.Text += fmt.Sprintf("; this outweighs the %+.2f the rest of the evidence gives", support)
 	}
 }
 

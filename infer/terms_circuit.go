@@ -53,7 +53,7 @@ func termCurrent(sc *scene, h Hypothesis, v voltsView, r *reasons) {
 	// for a tiny load (common practice, no source).
 	switch {
 	case q >= 2:
-		r.veto("current", "%s: twice the rating or more", text)
+		r.veto("current", "%s, twice the rating or more", text)
 	case q > 1:
 		r.add("current", 0.6*math.Exp(-0.5*sq((q-1)/0.15))+0.01, 0.3, "%s: over the rating", text)
 	case q > 0.8:

@@ -263,10 +263,11 @@ func termOutline(sc *scene, h Hypothesis, _ voltsView, r *reasons) {
 		}
 	}
 	if m.MetalCan != nil {
+		is := map[bool]string{true: "a metal can", false: "no metal can"}
 		if *m.MetalCan == o.MetalCan {
-			r.add("outline.metal_can", 0.97, 0.5, "metal can %v, as %s", *m.MetalCan, o.Name)
+			r.add("outline.metal_can", 0.97, 0.5, "%s, as on %s", is[*m.MetalCan], o.Name)
 		} else {
-			r.add("outline.metal_can", 0.01, 0.5, "metal can %v measured; %s is not", *m.MetalCan, o.Name)
+			r.add("outline.metal_can", 0.01, 0.5, "%s seen, but %s has %s", is[*m.MetalCan], o.Name, is[o.MetalCan])
 		}
 	}
 }

@@ -82,7 +82,11 @@ func termConduction(_ *scene, h Hypothesis, v voltsView, r *reasons) {
 	case d < -0.3:
 		r.veto("voltages.conduction", "%s − %s = %+.2f V: a conducting %s's %s must sit %s its %s", main, em, vm-ve, f.Device, main, map[bool]string{true: "above", false: "below"}[s > 0], em)
 	case d > 0.2:
-		r.add("voltages.conduction", 0.9, 0.5, "%s − %s = %+.2f V: the %s's %s is on the supply side, as it conducts", main, em, vm-ve, f.Device, main)
+		supply := main // an N-type part's collector (drain) is on the supply side, a P-type's emitter (source)
+		if s < 0 {
+			supply = em
+		}
+		r.add("voltages.conduction", 0.9, 0.5, "%s − %s = %+.2f V: the %s's %s is on the supply side, as it is when it conducts", main, em, vm-ve, f.Device, supply)
 	default:
 		r.add("voltages.conduction", 0.4, 0.5, "%s − %s = %+.2f V: a saturated %s", main, em, vm-ve, f.Device)
 	}

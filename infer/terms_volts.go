@@ -1,6 +1,7 @@
 package infer
 
 import (
+	"fmt"
 	"math"
 
 	"github.com/whichreg/whichreg/catalog"
@@ -56,14 +57,30 @@ func regulationZ(h Hypothesis, v voltsView) (z, d, want, allowed float64) {
 
 // headroomOK reports whether the input lead is known and far enough above
 // the output for h to regulate (a part in dropout may read anything lower).
-func headroomOK(h Hypothesis, v voltsView) bool {
-	return v.haveIn && v.haveOut && v.sign*(v.in-v.out) >= h.Family.HeadroomNeeded()*typicalHeadroom
+func headroomOK(h Hypothesis, v voltsView, ev *Evidence) bool {
+	need, _ := headroomNeed(h, ev)
+	return v.haveIn && v.haveOut && v.sign*(v.in-v.out) >= need*typicalHeadroom
+}
+
+// headroomNeed is the worst-case dropout of h at the evidence's load
+// ([catalog.Family.HeadroomAt]) and a few words saying at what load; a
+// PNP or P-MOS pass LDO whose load is not given is taken at light load
+// (its dropout falls with the load, and nothing says the load is heavy).
+func headroomNeed(h Hypothesis, ev *Evidence) (float64, string) {
+	f := h.Family
+	if !f.ScalesDropout() {
+		return f.HeadroomNeeded(), ""
+	}
+	if ev.Output == nil || !ev.Output.Amps.Set || ev.Output.Amps.V <= 0 {
+		return f.HeadroomAt(h.Package, 1e-9), " at light load"
+	}
+	return f.HeadroomAt(h.Package, ev.Output.Amps.V), fmt.Sprintf(" at %.3g A", ev.Output.Amps.V)
 }
 
 // termRegulation weighs OUT − common against the output or reference. Far
 // off while the input leaves room to regulate, it is an output the part
 // cannot make: a near-veto.
-func termRegulation(_ *scene, h Hypothesis, v voltsView, r *reasons) {
+func termRegulation(sc *scene, h Hypothesis, v voltsView, r *reasons) {
 	held := heldFn(h, v)
 	if _, ok := v.tv[held]; !isRegulator(h) || !ok || !v.haveCom || (h.VoutV == 0 && !h.Family.Adjustable()) {
 		return
@@ -72,7 +89,7 @@ func termRegulation(_ *scene, h Hypothesis, v voltsView, r *reasons) {
 	z, d, want, allowed := regulationZ(h, v)
 	_, what := regulated(h)
 	com := f.Common(h.Package)
-	if z > vetoZ && (headroomOK(h, v) || !v.haveIn) {
+	if z > vetoZ && (headroomOK(h, v, sc.ev) || !v.haveIn) {
 		r.veto("voltages.regulation", "%s − %s = %+.3f V, but this part holds %+.3f V ±%.3f there", held, com, d, v.sign*want, allowed)
 		return
 	}
@@ -158,20 +175,16 @@ func termHeadroom(sc *scene, h Hypothesis, v voltsView, r *reasons) {
 		return
 	}
 	head := v.sign * (v.in - v.out)
-	// The datasheet's worst-case dropout, the same figure replacement
-	// checks against (catalog.Family.HeadroomNeeded). A running part may
-	// be a typical one, which regulates with less: see typicalHeadroom.
-	drop := f.HeadroomNeeded()
+	// The datasheet's worst-case dropout at this load, the figure
+	// replacement checks against at full load (catalog.Family.HeadroomAt).
+	// A running part may be a typical one, which regulates with less: see
+	// typicalHeadroom.
+	drop, at := headroomNeed(h, sc.ev)
 	thr := drop * typicalHeadroom
 	// Far below what the part needs, the headroom is impossible whether the
-	// output holds or sags: in dropout a classic or quasi-LDO part's output
-	// still trails its input by about its dropout. A PNP-pass LDO's dropout
-	// shrinks with the load (LM2940: 1.0 V max at 1 A, tens of millivolts at
-	// milliamperes), so it is spared unless the load is near its rating.
+	// output holds or sags: in dropout a part's output still trails its
+	// input by about its dropout.
 	vetoBelow := 0.5 * thr
-	if f.Pass == "pnp" {
-		vetoBelow *= loadFraction(sc.ev, h) - 0.5
-	}
 	switch {
 	case head < -0.3:
 		below := "above"
@@ -180,24 +193,18 @@ func termHeadroom(sc *scene, h Hypothesis, v voltsView, r *reasons) {
 		}
 		r.veto("voltages.headroom", "IN − %s = %+.2f V, but a %s regulator's input must be %s its output", v.outFn, v.in-v.out, f.Polarity, below)
 	case head < vetoBelow:
-		r.veto("voltages.headroom", "the output holds with only %.2f V headroom, but this part needs about %.2f V (worst-case dropout %.2f V)", head, thr, drop)
+		r.veto("voltages.headroom", "the output holds with only %.2f V headroom, but this part needs about %.2f V (worst-case dropout %.2f V%s)", head, thr, drop, at)
 	case head < thr:
 		d := (thr - head) / drop
-		r.add("voltages.headroom", 0.9*math.Exp(-0.5*sq(d/0.15))+0.01, 0.3, "headroom %.2f V, below even a typical part's %.2f V (worst-case dropout %.2f V)", head, thr, drop)
+		p := 0.9*math.Exp(-0.5*sq(d/0.15)) + 0.01
+		if p > 0.3 {
+			r.add("voltages.headroom", p, 0.3, "headroom %.2f V, a little under a typical part's %.2f V (worst-case dropout %.2f V%s): a better-than-typical part still regulates there", head, thr, drop, at)
+		} else {
+			r.add("voltages.headroom", p, 0.3, "headroom %.2f V, below even a typical part's %.2f V (worst-case dropout %.2f V%s)", head, thr, drop, at)
+		}
 	default:
-		r.add("voltages.headroom", 0.9, 0.3, "headroom %.2f V, above a typical part's %.2f V (worst-case dropout %.2f V)", head, thr, drop)
+		r.add("voltages.headroom", 0.9, 0.3, "headroom %.2f V, above a typical part's %.2f V (worst-case dropout %.2f V%s)", head, thr, drop, at)
 	}
-}
-
-// loadFraction is the load as a fraction of h's rating, 0 when not given.
-func loadFraction(ev *Evidence, h Hypothesis) float64 {
-	if ev.Output == nil || !ev.Output.Amps.Set {
-		return 0
-	}
-	if r := h.Family.Current(h.Package); r > 0 {
-		return math.Min(1, ev.Output.Amps.V/r)
-	}
-	return 0
 }
 
 // termBenchDropout weighs a measured dropout (the input lowered on a bench
@@ -212,13 +219,13 @@ func termBenchDropout(sc *scene, h Hypothesis, _ voltsView, r *reasons) {
 	if b == nil || !b.DropoutVolts.Set || !isRegulator(h) {
 		return
 	}
-	need := h.Family.HeadroomNeeded()
+	need, _ := headroomNeed(h, sc.ev)
 	if need <= 0 {
 		return
 	}
 	d := math.Abs(b.DropoutVolts.V)
 	lo, hi := 0.5*need, 1.15*need
-	pnp := h.Family.Pass == "pnp"
+	pnp := h.Family.ScalesDropout()
 	if pnp {
 		lo = 0
 	}

@@ -151,6 +151,16 @@ func checkCout(in Input, c cand) (Check, bool) {
 	case cp.Type == infer.CapCeramic && !req.CeramicOK:
 		ch.Margin, ch.Status = -1, Work
 		ch.Text = "not stable with ceramic capacitors alone: its loop needs the ESR of a tantalum or aluminium part"
+		if esr := esrEstimate(cp.Type, cp.UF); req.ESRMinOhm > 0 {
+			// The ESR decides: the row's figures are in ohms.
+			ch.Unit, ch.Value, ch.Limit = "Ω", num(esr), num(req.ESRMinOhm)
+			ch.ValueText += fmt.Sprintf(", ESR about %s", ohmsG(esr))
+			ch.Margin = esr/req.ESRMinOhm - 1
+			ch.Text = fmt.Sprintf("not stable with ceramic capacitors alone: their ESR (about %s) is below the %s its loop needs", ohmsG(esr), ohmsG(req.ESRMinOhm))
+		}
+		if cp.UFSet && cp.UF < req.MinUF {
+			ch.Text += fmt.Sprintf("; and %g µF is under its %g µF minimum", cp.UF, req.MinUF)
+		}
 		ch.Action = capAdvice(f, cp)
 	case cp.UFSet && req.MinUF > 0 && cp.UF < req.MinUF:
 		ch.Margin, ch.Status = cp.UF/req.MinUF-1, Work
@@ -239,6 +249,14 @@ func esrAdvice(f *catalog.Family, cp Cap) string {
 		r := math.Sqrt(math.Max(req.ESRMinOhm, 0.01) * req.ESRMaxOhm)
 		if req.ESRMaxOhm <= 0 {
 			r = 2 * req.ESRMinOhm
+		}
+		// The E12 value nearest the window's geometric middle (IEC 60063).
+		if lo, hi, ok := circuit.Nearest(circuit.Values(circuit.E12, 0.01, 100), r); ok {
+			if hi/r < r/lo {
+				r = hi
+			} else {
+				r = lo
+			}
 		}
 		return fmt.Sprintf("capacitor: put a %s resistor in series with the %g µF ceramic (in the capacitor's leg, not the output line), or fit %g µF of solid tantalum with an ESR of %s, right at the output lead", ohmsG(r), cp.UF, uf, window)
 	}
