@@ -123,7 +123,9 @@ func asks(c *catalog.Catalog, ev *Evidence, hs []Candidate) []measurement {
 		ms = append(ms, dropoutAsk(ev))
 	}
 	if ev.Bench == nil || !ev.Bench.HoldsAmps.Set {
-		ms = append(ms, holdsAsk(hs))
+		if m, ok := holdsAsk(hs); ok {
+			ms = append(ms, m)
+		}
 	}
 	if ev.Package == "" && (ev.Outline == nil || ev.Outline.Leads == nil) {
 		ms = append(ms, packageAsk(hs))
@@ -303,14 +305,17 @@ func dropoutAsk(ev *Evidence) measurement {
 
 // holdsAsk offers the load test that separates families of one pinout by
 // their rating: raise a test load up to the largest leader's rating and note
-// the largest the output holds. Each part holds about its rating (its
+// the largest the output holds; none when no regulator leads. Each part holds about its rating (its
 // current limit lies above it, but the test stops at the largest rating).
-func holdsAsk(hs []Candidate) measurement {
+func holdsAsk(hs []Candidate) (measurement, bool) {
 	top := 0.0
 	for _, c := range hs {
 		if c.Probability > 0.01 && isRegulator(c.Hypothesis) {
 			top = math.Max(top, c.Family.Current(c.Package))
 		}
+	}
+	if top <= 0 { // no regulator worth a load test leads
+		return measurement{}, false
 	}
 	return measurement{
 		Measurement: Measurement{
@@ -331,7 +336,7 @@ func holdsAsk(hs []Candidate) measurement {
 		},
 		describe: func(key string) string { return "holds " + key },
 		effort:   benchEffort,
-	}
+	}, true
 }
 
 func dropoutBucket(v float64) string {
