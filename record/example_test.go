@@ -50,6 +50,6 @@ amps = 0.3
 	// Output:
 	// U7 2026-03-14
 	// original: 78xx TO-220
-	// chosen: 4940 TO-220 drop-in
+	// chosen: 78xx TO-220 drop-in
 	// runners-up: true
 }

@@ -76,8 +76,11 @@ func checkThermal(in Input, c cand) (Check, bool) {
 		}
 		if in.Ev.Mount == nil {
 			// Nothing says how the running original is cooled: it cannot
-			// have run in free air, so this is a question, not a verdict.
-			ch.Status = Warn
+			// have run in free air, so this is a question, not a verdict,
+			// and the free-air junction temperature is no value to judge by
+			// (its negative margin would contradict the caution).
+			ch.Status, ch.Value, ch.Margin = Warn, nil, 0
+			ch.ValueText = fmt.Sprintf("unknown (free air: Tj %.0f °C)", tj)
 			ch.Text += "; the evidence does not describe the mounting, and the original cannot have run like this in free air: give [mount] heatsink_c_per_w"
 		}
 	}
