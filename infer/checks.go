@@ -197,7 +197,7 @@ func (sc *scene) inputSlip(res *Result) []string {
 	}
 	if r := sc.input.Rectifier; r != nil && vm < sc.input.Peak.V*0.8 {
 		// The lowest trough: low mains, full load, low filter capacitance.
-		low, err := r.At(circuit.Corner{Mains: 1 - sc.input.MainsTol, CapFactor: 1 - FilterCapTolerance, Load: r.Load}).Solve()
+		low, err := sc.ev.memo.solve(r.At(circuit.Corner{Mains: 1 - sc.input.MainsTol, CapFactor: 1 - FilterCapTolerance, Load: r.Load}))
 		if err == nil && vm < low.TroughV*0.95 {
 			return []string{fmt.Sprintf("lead %d (the input) reads %.2f V, but the [input] model (%s) never falls below %.1f V, even at low mains and full load: "+
 				"check input.secondary_vrms and input.filter_uf (a dried-out filter capacitor reads low too)", n, v, desc, low.TroughV)}

@@ -122,6 +122,9 @@ type Evidence struct {
 	// loc finds keys in the file for positioned errors; nil for evidence
 	// built in Go.
 	loc tomlpos.Locator
+	// memo keeps the rectifier solves made for this evidence (see
+	// [solveMemo]); nil for evidence built in Go, which then solves afresh.
+	memo *solveMemo
 }
 
 const evidenceHint = "the known keys are in the template that `whichreg evidence init` writes"
@@ -137,6 +140,7 @@ func LoadEvidence(name string, data []byte, c *catalog.Catalog) (*Evidence, erro
 		return nil, errs
 	}
 	ev.loc = ix
+	ev.memo = &solveMemo{}
 	if err := ev.Check(c); err != nil {
 		var more tomlpos.ErrorList
 		if errors.As(err, &more) {

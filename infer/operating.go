@@ -200,7 +200,7 @@ func OperatingPoint(ev *Evidence, opts OperatingOptions) (*Operating, error) {
 			{Name: "high mains, light load, nominal C", Mains: 1 + op.MainsTol, CapFactor: 1, Load: light},
 			{Name: "high mains, light load, low C", Mains: 1 + op.MainsTol, CapFactor: 1 - FilterCapTolerance, Load: light},
 		} {
-			res, err := r.At(c).Solve()
+			res, err := ev.memo.solve(r.At(c))
 			if err != nil {
 				return nil, fmt.Errorf("%s: [input]: %s: %w", ev.File, c.Name, err)
 			}
@@ -210,11 +210,11 @@ func OperatingPoint(ev *Evidence, opts OperatingOptions) (*Operating, error) {
 		}
 		return op, nil
 	}
-	cr, err := r.Corners(circuit.CornerSpec{MainsTol: op.MainsTol, CapTol: FilterCapTolerance, LoadMin: light, LoadMax: r.Load})
+	cr, err := r.Corners(circuit.CornerSpec{MainsTol: op.MainsTol, CapTol: FilterCapTolerance, LoadMin: light, LoadMax: r.Load, Solve: ev.memo.solve})
 	if err != nil {
 		return nil, fmt.Errorf("%s: [input]: %w", ev.File, err)
 	}
-	nom, err := r.Solve()
+	nom, err := ev.memo.solve(r)
 	if err != nil {
 		return nil, fmt.Errorf("%s: [input]: nominal: %w", ev.File, err)
 	}
@@ -371,7 +371,7 @@ func (op *Operating) rectifierModel(ev *Evidence) (r circuit.Rectifier, ok bool,
 	op.note("filter capacitor ESR 0.05 Ω and 1N4007-class diodes assumed")
 	r = circuit.Rectifier{Topology: top, VrmsV: emf, Hz: hz, CapF: in.FilterUF.V * 1e-6, ESROhm: 0.05, SourceOhm: rs, Load: circuit.Load{Amps: op.LoadMaxA}}
 	// The model's own loaded secondary must read what was measured.
-	if r, err = r.MatchSecondary(in.SecondaryVrms.V); err != nil {
+	if r, err = ev.memo.match(r, in.SecondaryVrms.V); err != nil {
 		return r, false, fmt.Errorf("%s: [input]: %w", ev.File, err)
 	}
 	return r, true, nil

@@ -115,6 +115,10 @@ type CornerSpec struct {
 	CapTol   float64 // capacitor tolerance downward, fraction (0.20 = −20 %)
 	LoadMin  Load    // lightest load
 	LoadMax  Load    // heaviest load
+	// Solve, when set, solves each corner in place of [Rectifier.Solve]
+	// (a caller's memo of solves already made); it must give what
+	// Rectifier.Solve gives.
+	Solve func(Rectifier) (Result, error)
 }
 
 // Corner is one evaluated corner.
@@ -141,6 +145,10 @@ func (r Rectifier) Corners(spec CornerSpec) (CornerResult, error) {
 	if spec.MainsTol < 0 || spec.MainsTol >= 1 || spec.CapTol < 0 || spec.CapTol >= 1 {
 		return CornerResult{}, fmt.Errorf("tolerances must be fractions from 0 to below 1 (mains %g, capacitor %g)", spec.MainsTol, spec.CapTol)
 	}
+	solve := spec.Solve
+	if solve == nil {
+		solve = Rectifier.Solve
+	}
 	var out CornerResult
 	first := true
 	for _, m := range []struct {
@@ -159,7 +167,7 @@ func (r Rectifier) Corners(spec CornerSpec) (CornerResult, error) {
 					continue
 				}
 				cn := Corner{Name: m.name + ", " + l.name + ", " + c.name, Mains: m.f, CapFactor: c.f, Load: l.load}
-				res, err := r.At(cn).Solve()
+				res, err := solve(r.At(cn))
 				if err != nil {
 					return CornerResult{}, fmt.Errorf("%s: %w", cn.Name, err)
 				}

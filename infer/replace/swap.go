@@ -103,6 +103,13 @@ func WhyNotFirst(r, first *Replacement) string {
 			return fmt.Sprintf("%s: %s %s: %s", r.Verdict, r.Deciding, r.DecidingWhy, dec.Text)
 		}
 		return string(r.Verdict)
+	case r.Verdict == Unsuitable && first.FailsLikeOriginal && !r.FailsLikeOriginal && dec != nil:
+		return fmt.Sprintf("also unsuitable, and it fails where the original does not: %s: %s", r.Deciding, dec.Text)
+	case r.Verdict == Unsuitable && r.Deciding == first.Deciding && dec != nil && unitGap(r, first):
+		mr, _ := dec.MarginInUnit()
+		mf, _ := first.Check(first.Deciding).MarginInUnit()
+		return fmt.Sprintf("also unsuitable, missing %s by more than %s does (%s against %s): %s", r.Deciding, first.Label(),
+			signedIn(mr, dec.Unit), signedIn(mf, dec.Unit), dec.Text)
 	case r.Verdict == NeedsWork && r.WorkCount != first.WorkCount:
 		return fmt.Sprintf("more work (%s) than %s (%s)", r.WorkList(), first.Label(), first.WorkList())
 	case math.Abs(r.MinMargin-first.MinMargin) > 1e-9 && dec != nil:
@@ -289,4 +296,17 @@ func where(n CheckName) string {
 		return "at light load"
 	}
 	return "here"
+}
+
+// unitGap reports whether r and first, failing the same check, miss it by
+// different amounts in its unit.
+func unitGap(r, first *Replacement) bool {
+	mr, ok1 := r.Check(r.Deciding).MarginInUnit()
+	mf, ok2 := first.Check(first.Deciding).MarginInUnit()
+	return ok1 && ok2 && math.Abs(mr-mf) > 1e-9
+}
+
+// signedIn writes a signed margin in its unit with three significant figures.
+func signedIn(v float64, unit string) string {
+	return fmt.Sprintf("%+.3g %s", v, unit)
 }

@@ -306,3 +306,33 @@ func mustRead(t *testing.T, name string) []byte {
 	}
 	return data
 }
+
+// TestUnsuitableRanking: when nothing passes (the bound from a 16.5 V
+// reading leaves 0.06 V of headroom for a 12 V rail;
+// testdata/swap/why-no-rectifier-dropout.toml), the parts that fail only
+// where the original fails rank first, the one that misses the dropout by
+// the least volts leading (a 2937 needs 1.0 V, TI LM2937: −0.94 V, against
+// the 78xx's 2.0 V: −1.94 V), and the runners-up say so in volts.
+func TestUnsuitableRanking(t *testing.T) {
+	c := builtinCatalog(t)
+	ev := load(t, c, "../../testdata/swap/why-no-rectifier-dropout.toml")
+	res, err := replace.Swap(c, ev, original(t, c, ev, "78xx:TO-220:12"), replace.Options{All: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	first := &res.Replacements[0]
+	if first.Verdict != replace.Unsuitable || !first.FailsLikeOriginal || first.Deciding != replace.CheckDropout {
+		t.Fatalf("first: %s %s", first.Label(), first.Summary())
+	}
+	if m, _ := first.Check(replace.CheckDropout).MarginInUnit(); math.Abs(m+0.94) > 0.01 {
+		t.Errorf("first %s misses the dropout by %.3f V, want −0.94 V", first.Label(), m)
+	}
+	for i := range res.Replacements {
+		r := &res.Replacements[i]
+		if r.Family.ID == "78xx" && r.Package.Outline == "TO-220" {
+			if w := replace.WhyNotFirst(r, first); !strings.Contains(w, "missing dropout by more") || !strings.Contains(w, "-1.94 V") {
+				t.Errorf("why not first: %q", w)
+			}
+		}
+	}
+}
