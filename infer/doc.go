@@ -32,17 +32,27 @@
 // hypothesis gets a flat likelihood for every piece of evidence, so
 // evidence that fits nothing says so. Probabilities are the normalised
 // exponentials of the scores; the score of a candidate is exactly the sum of
-// its reasons' weights. Cross-checks (checks.go) list conflicts without
-// failing: a slip in the transformer figure, a misread marking, swapped
-// meter leads, a package name that does not fit the leads counted.
+// its reasons' weights. Variants of a family that look the same on the
+// board (one outline, pinout and tab; another rating or maker) share their
+// outline's prior and rank as one candidate (variants.go). A named package
+// costs by how easily it is written for the variant's outline (a name a
+// character apart, the same kind, a difference seen at a glance); with no
+// [input] described, the input reading itself weighs against the part's
+// limit, the bound taken from it only lightly. Cross-checks (checks.go)
+// list conflicts without failing: a slip in the transformer figure, a
+// misread marking, swapped meter leads, a package name that does not fit
+// the leads counted or the leader.
 //
 // # Next measurement
 //
 // For each measurement still open (a lead's continuity or voltage, the case
-// tie, the load current, the input's ripple trough, a bench dropout test,
+// tie, where a two-lead can goes, the load current, the input's ripple trough, a bench dropout test,
 // the package, a second look at the marking), every hypothesis predicts an
 // outcome; the expected information gain is the mutual information, in bits,
-// between the leading hypotheses and the outcome. Each [Measurement] names
+// between the leading hypotheses and the outcome. Readings are predicted
+// as numbers where the evidence allows (a common lead at the measured
+// output less the part's voltage, so a lifted 5 V part and a 6 V part
+// predict different readings; a lead of known wiring at its rail). Each [Measurement] names
 // the evidence key its answer fills, how the answer is written and, for a
 // powered one, the caution to show first. Measurements the outline or the
 // circuit cannot give are never offered.
