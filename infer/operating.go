@@ -69,6 +69,10 @@ type Operating struct {
 	// sentences.
 	Assumptions []string `json:"assumptions"`
 
+	// ReadingV is the meter reading of the IN lead the input is bounded
+	// from (InputReading only; magnitude, volts; 0 otherwise).
+	ReadingV float64 `json:"reading_v,omitempty"`
+
 	troughMeasured float64 // a scope trough at nominal mains, magnitude; 0 = none
 }
 
@@ -253,7 +257,7 @@ func (op Operating) FromReading(vin float64) Operating {
 	t, ripple := op.MainsTol, op.readingRipple(vm)
 	crest := vm + ripple/2 + readingDropV // the secondary's crest at full load
 	op.Peak = op.PeakFor(vin)
-	op.Source = InputReading
+	op.Source, op.ReadingV = InputReading, vm
 	op.Nominal = Levels{PeakV: vm + ripple/2, TroughV: vm - ripple/2, MeanV: vm}
 	// Lowest: the crest at low mains less the drop, which does not shrink,
 	// and the ripple grown by the low capacitor.

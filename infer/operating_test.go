@@ -114,3 +114,43 @@ func TestOperatingReconcile(t *testing.T) {
 		t.Errorf("a reading at half the lowest mean: %s, %q", low.Source, why)
 	}
 }
+
+// TestOnlyBoundCrosses: a limit crossed by the bound from a bare reading
+// but not by the reading itself is an assumption; crossed by the reading,
+// it is hard evidence. The bound from −11.3 V (TestOperatingFromReading's
+// hand figures): trough 8.212 V, peak 15.8553 V; no bound for a DC supply.
+func TestOnlyBoundCrosses(t *testing.T) {
+	c := builtinCatalog(t)
+	ev := load(t, c, "../testdata/demo/controller-to3-case.toml")
+	ev.Input = nil
+	op, err := infer.OperatingPoint(ev, infer.OperatingOptions{Sweep: infer.SweepAll, AssumedLoadA: 1.5})
+	if err != nil {
+		t.Fatal(err)
+	}
+	r := op.FromReading(-11.3)
+	for _, tc := range []struct {
+		side  infer.BoundSide
+		limit float64
+		want  bool
+	}{
+		{infer.BoundLow, 9, true},      // 8.212 < 9 ≤ 11.3: the bound alone
+		{infer.BoundLow, 12, false},    // the reading itself is below 12 V
+		{infer.BoundLow, 8, false},     // the bound is inside too
+		{infer.BoundHigh, 15, true},    // 15.86 > 15 ≥ 11.3: the bound alone
+		{infer.BoundHigh, 11, false},   // the reading itself is over 11 V
+		{infer.BoundHigh, 16.5, false}, // inside
+	} {
+		if got := r.OnlyBoundCrosses(tc.side, tc.limit); got != tc.want {
+			t.Errorf("side %d limit %g: %v, want %v", tc.side, tc.limit, got, tc.want)
+		}
+	}
+	if v, ok := r.Measured(infer.BoundLow); !ok || v != 11.3 {
+		t.Errorf("measured %g %v, want 11.3", v, ok)
+	}
+	if !strings.Contains(r.BoundAdvice(infer.BoundHigh), "11.3 V reading") {
+		t.Errorf("advice %q", r.BoundAdvice(infer.BoundHigh))
+	}
+	if op.OnlyBoundCrosses(infer.BoundLow, 9) {
+		t.Error("no reading, no bound: nothing to call an assumption")
+	}
+}

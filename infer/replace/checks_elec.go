@@ -220,11 +220,32 @@ func checkVinMax(in Input, c cand) (Check, bool) {
 			ch.Text += "; use a high-voltage version or drop the input with a pre-regulator; protection diodes (OUT to IN, ADJ to OUT) guard against capacitor discharge, not against this"
 		}
 	}
-	if cd.Source == infer.InputReading && ch.Status == Pass {
-		ch.Status = Warn
-		ch.Text += " (the highest input is a bound from the meter reading: describe the rectifier to confirm)"
+	if cd.Source == infer.InputReading && at == cd.PeakAt {
+		boundOnly(&in.Op, &ch, infer.BoundHigh, il.StartV, func(m float64) string {
+			return fmt.Sprintf("the reading itself is %s%.3g V against %s%.0f V", s, m, s, il.StartV)
+		}, " (the highest input is a bound from the meter reading: describe the rectifier to confirm)")
 	}
 	return ch, true
+}
+
+// boundOnly settles a check against an input bounded from a bare reading:
+// a pass (or a warn inside its limit) becomes a warn with passNote; a fail
+// that only the assumed bound makes (the measured value is inside limitV)
+// becomes a warn that says so and how to settle it, keeping the bound's
+// margin; a fail the measured value itself makes stays a fail. measured
+// words the measured value m against the limit.
+func boundOnly(op *infer.Operating, ch *Check, side infer.BoundSide, limitV float64, measured func(m float64) string, passNote string) {
+	m, _ := op.Measured(side)
+	switch {
+	case ch.Status == Pass || (ch.Status == Warn && ch.Margin >= 0):
+		ch.Status = Warn
+		ch.Text += passNote
+	case ch.Status == Fail && op.OnlyBoundCrosses(side, limitV):
+		ch.Status = Warn
+		ch.Text += "; only the assumed bound misses it (" + measured(m) + "): " + op.BoundAdvice(side)
+	case ch.Status == Fail:
+		ch.Text += "; the measurement itself misses it (" + measured(m) + "), whatever feeds the part"
+	}
 }
 
 func checkDropout(in Input, c cand) (Check, bool) {
@@ -241,10 +262,9 @@ func checkDropout(in Input, c cand) (Check, bool) {
 	}
 	ch.Text = fmt.Sprintf("the input falls to %s%.2f V at %s; this part needs %.2f V (its datasheet's worst case) %s the %s%.2f V output", s, cd.TroughV, cd.TroughAt, need, beyond, s, cd.VoutV)
 	if cd.Source == infer.InputReading {
-		if ch.Status == Pass {
-			ch.Status = Warn
-		}
-		ch.Text += "; the lowest input is a bound from the meter reading: measure the trough with a scope at full load to settle it"
+		boundOnly(&in.Op, &ch, infer.BoundLow, cd.VoutV+need, func(m float64) string {
+			return fmt.Sprintf("the %s%.3g V measured leaves %.2f V against %.2f V needed", s, m, m-cd.VoutV, need)
+		}, "; the lowest input is a bound from the meter reading: measure the trough with a scope at full load to settle it")
 	}
 	return ch, true
 }

@@ -76,18 +76,33 @@ type Shortfall struct {
 	Check      Check  // the original's own row
 	PassedBy   string // the best-ranked usable candidate that passes it; "" when none
 	PassedWith string // its value against its limit
-	cond       Conditions
+	// OnBound is true when the original misses the check only on the
+	// assumed bound from a bare reading of the IN lead, not on the reading
+	// itself: the check warns (see [infer.Operating.OnlyBoundCrosses]).
+	OnBound bool
+	cond    Conditions
+	advice  string // how to settle a miss on the bound
 }
 
 // Sentence says it in words for the summary.
 func (s Shortfall) Sentence(orig string) string {
+	if s.OnBound {
+		t := fmt.Sprintf("the original %s misses %s only on the assumed input bound (%s against %s), not on the reading itself: %s",
+			orig, s.Check.Name, s.Check.ValueText, s.Check.LimitText, s.advice)
+		if s.PassedBy != "" {
+			t += fmt.Sprintf("; %s clears even the bound (%s)", s.PassedBy, s.PassedWith)
+		}
+		return t
+	}
 	t := fmt.Sprintf("the original %s fails %s in this circuit too (%s against %s): %s",
 		orig, s.Check.Name, s.Check.ValueText, s.Check.LimitText, circuitWords(s.Check, s.cond))
 	switch {
 	case s.PassedBy != "":
 		t += fmt.Sprintf("; %s passes it (%s)", s.PassedBy, s.PassedWith)
-	case s.cond.Source == infer.InputReading:
-		t += "; no usable part passes it on this bound: describe the input ([input] rectifier, secondary and filter, or rectifier = \"dc\" for a battery or DC supply) to settle it"
+	case s.cond.Source == infer.InputReading && (s.Check.Name == CheckDropout || s.Check.Name == CheckVinMax):
+		t += "; no usable part clears the assumed bound too: those that clear the reading itself are listed with a warning"
+	case s.Check.Name == CheckDropout && s.cond.Source == infer.InputDC:
+		t += "; no usable part passes it: the supply sags too low for this output"
 	case s.Check.Name == CheckDropout:
 		t += "; no usable part passes it: the circuit needs more filter capacitance, a higher secondary or less load"
 	default:
@@ -133,7 +148,8 @@ type Result struct {
 	Conditions   Conditions     // the circuit numbers the checks used
 	Assumptions  []string       // defaults used where the evidence was silent
 	// OriginalShortfalls are the checks the original part itself fails in
-	// this circuit (nil when it passes them all).
+	// this circuit, and those it misses only on the assumed bound from a
+	// bare reading ([Shortfall.OnBound]); nil when it passes them all.
 	OriginalShortfalls []Shortfall
 	// Hidden counts unsuitable candidates left out (without Options.All).
 	Hidden int

@@ -205,15 +205,23 @@ func afterPowerUp(in Input, c cand) []string {
 func originalShortfalls(in *Input, orig infer.Original, all []Replacement) []Shortfall {
 	own := Evaluate(in, orig.Hypothesis)
 	var out []Shortfall
-	failed := map[CheckName]*Check{}
+	failed, onBound := map[CheckName]*Check{}, map[CheckName]*Check{}
 	for _, ch := range own.Checks {
 		switch ch.Name {
 		case CheckOutline, CheckPolarity, CheckPinout, CheckTab:
 			continue // the original fits its own place by definition
 		}
-		if ch.Status == Fail {
+		switch {
+		case ch.Status == Fail:
 			failed[ch.Name] = &ch
 			out = append(out, Shortfall{Check: ch, cond: in.Cond})
+		case ch.Status == Warn && ch.Margin < 0 && in.Cond.Source == infer.InputReading && (ch.Name == CheckDropout || ch.Name == CheckVinMax):
+			side := infer.BoundLow
+			if ch.Name == CheckVinMax {
+				side = infer.BoundHigh
+			}
+			onBound[ch.Name] = &ch
+			out = append(out, Shortfall{Check: ch, cond: in.Cond, OnBound: true, advice: in.Op.BoundAdvice(side)})
 		}
 	}
 	if len(out) == 0 {
@@ -224,6 +232,9 @@ func originalShortfalls(in *Input, orig infer.Original, all []Replacement) []Sho
 		fails, shared := 0, 0
 		for j := range r.Checks {
 			ch := &r.Checks[j]
+			if oc, ok := onBound[ch.Name]; ok && ch.Margin < 0 {
+				ch.Text += "; the original part misses this bound too (" + oc.ValueText + " against " + oc.LimitText + ")"
+			}
 			if ch.Status != Fail {
 				continue
 			}
@@ -242,7 +253,7 @@ func originalShortfalls(in *Input, orig infer.Original, all []Replacement) []Sho
 		for i := range all {
 			r := &all[i]
 			ch := r.Check(out[k].Check.Name)
-			if r.Verdict == Unsuitable || ch == nil || (ch.Status != Pass && ch.Status != Warn) {
+			if r.Verdict == Unsuitable || ch == nil || (ch.Status != Pass && ch.Status != Warn) || ch.Margin < 0 {
 				continue
 			}
 			if best == nil || better(r, best) {
@@ -267,12 +278,17 @@ func circuitWords(own Check, cd Conditions) string {
 	if (own.Name == CheckThermal || own.Name == CheckCurrent) && own.Margin < -0.5 {
 		return "the original could not have run like this for long: check the load and the mounting the evidence gives"
 	}
-	s := "the circuit, not the part, is marginal " + where(own.Name)
+	if cd.Source == infer.InputReading && (own.Name == CheckDropout || own.Name == CheckVinMax) {
+		// A fail here is the measured reading's own (a miss on the bound
+		// alone is a warn, see [boundOnly]).
+		return "the measured input itself is outside the part's limit: check the reading and what feeds the part"
+	}
+	s := "the circuit, not the part, is marginal " + where(own.Name, cd.Source)
 	var on []string
 	if cd.LoadAssumed && own.Name != CheckVinMax {
 		on = append(on, "the assumed load")
 	}
-	if cd.Source == infer.InputReading && (own.Name == CheckDropout || own.Name == CheckVinMax || own.Name == CheckThermal) {
+	if cd.Source == infer.InputReading && own.Name == CheckThermal {
 		on = append(on, "the bound from the meter reading")
 	}
 	if len(on) > 0 {
@@ -281,8 +297,15 @@ func circuitWords(own Check, cd Conditions) string {
 	return s
 }
 
-// where says under which condition a check's shortfall shows.
-func where(n CheckName) string {
+// where says under which condition a check's shortfall shows, for an
+// input from source src.
+func where(n CheckName, src infer.InputSource) string {
+	switch {
+	case src == infer.InputDC && n == CheckDropout:
+		return "at the supply's lowest"
+	case src == infer.InputDC && (n == CheckVinMax || n == CheckThermal):
+		return "at the supply's highest"
+	}
 	switch n {
 	case CheckDropout:
 		return "at low mains and full load"
