@@ -107,7 +107,7 @@ func guideRun(o *guideOptions) error {
 	if err != nil {
 		return inputError(err, "mend the file (the message names the line), or start another with 'whichreg guide'")
 	}
-	// Piped answers are echoed after the prompt, so that the transcript reads
+	// Piped answers are echoed after the prompt, so that the saved session log reads
 	// as a session; a terminal echoes them itself.
 	echo := true
 	if f, ok := o.app.IO.In.(*os.File); ok {
