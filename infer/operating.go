@@ -258,12 +258,13 @@ func (op Operating) FromReading(vin float64) Operating {
 	crest := vm + ripple/2 + readingDropV // the secondary's crest at full load
 	op.Peak = op.PeakFor(vin)
 	op.Source, op.ReadingV = InputReading, vm
+	bounded := readingName(vm)
 	op.Nominal = Levels{PeakV: vm + ripple/2, TroughV: vm - ripple/2, MeanV: vm}
 	// Lowest: the crest at low mains less the drop, which does not shrink,
 	// and the ripple grown by the low capacitor.
-	op.Trough = Level{op.scaledTrough(vm-ripple/2, readingDropV, ripple), "the reading at low mains, full load, low C (bounded)"}
-	op.MeanHigh = Level{crest*(1+t) - readingDropV - ripple/2, "the reading at high mains, full load (bounded)"}
-	op.MeanLow = Level{crest*(1-t) - readingDropV - ripple/2, "the reading at low mains, full load (bounded)"}
+	op.Trough = Level{op.scaledTrough(vm-ripple/2, readingDropV, ripple), "low mains, full load and low C as bounded from the " + bounded}
+	op.MeanHigh = Level{crest*(1+t) - readingDropV - ripple/2, "high mains and full load as bounded from the " + bounded}
+	op.MeanLow = Level{crest*(1-t) - readingDropV - ripple/2, "low mains and full load as bounded from the " + bounded}
 	if op.troughMeasured > 0 {
 		op.Trough.At = "the measured trough taken to low mains and low C"
 	}
@@ -327,8 +328,11 @@ func (op *Operating) PeakFor(vin float64) Level {
 	}
 	vm := math.Abs(vin)
 	crest := vm + op.readingRipple(vm)/2 + readingDropV
-	return Level{crest*(1+readingRegulation)*(1+op.MainsTol) - readingLightDropV, "the reading at high mains and light load (bounded)"}
+	return Level{crest*(1+readingRegulation)*(1+op.MainsTol) - readingLightDropV, "high mains and light load as bounded from the " + readingName(vm)}
 }
+
+// readingName names a bare reading of vm volts in the corner texts.
+func readingName(vm float64) string { return fmt.Sprintf("%.3g V reading", vm) }
 
 // readingRipple is the full-load ripple taken with a bare reading vm: from
 // the measured trough when there is one (the mean sits about half the ripple
