@@ -79,12 +79,14 @@ func termInputMax(sc *scene, h Hypothesis, v voltsView, r *reasons) {
 	if limit <= 0 {
 		return
 	}
-	lim := fmt.Sprintf("%.0f V %s", limit, il.What)
+	s := f.SignText() // negative rails keep their sign in every figure
+	lim := fmt.Sprintf("%s%.0f V %s", s, limit, il.What)
 	switch {
 	case f.NonRegulator():
+		s = ""
 		lim = fmt.Sprintf("%.0f V voltage rating", limit)
 	case f.Adjustable() && h.VoutV > 0 && limit > il.StartV:
-		lim = fmt.Sprintf("%.0f V limit (the %.0f V %s plus the %.3g V output)", limit, il.StartV, il.What, h.VoutV)
+		lim = fmt.Sprintf("%s%.0f V limit (the %.0f V %s plus the %s%.3g V output)", s, limit, il.StartV, il.What, s, h.VoutV)
 	}
 	if sc.input.Source == InputUnknown {
 		if !v.haveIn || v.in == 0 {
@@ -93,15 +95,15 @@ func termInputMax(sc *scene, h Hypothesis, v voltsView, r *reasons) {
 		read, bound := math.Abs(v.in), sc.input.PeakFor(v.in).V
 		switch {
 		case read > readingVetoQ*limit:
-			r.veto("input_max", "input %.1f V measured, far over the %s: the part could not have run on it", read, lim)
+			r.veto("input_max", "input %s%.1f V measured, far over the %s: the part could not have run on it", s, read, lim)
 		case read > limit:
-			r.add("input_max", overLimit(read/limit), 0.5, "input %.1f V measured, %s the %s", read, overWords(read/limit), lim)
+			r.add("input_max", overLimit(read/limit), 0.5, "input %s%.1f V measured, %s the %s", s, read, overWords(read/limit), lim)
 		case bound > limit:
 			// The part has run on the reading; only the assumed rise
 			// (high mains, light load) takes it over.
-			r.add("input_max", 0.35, 0.5, "input peak %.1f V at most, a bound from the %.1f V reading at high mains and light load: over the %s, but the part runs on the %.1f V measured, so the bound weighs lightly", bound, read, lim, read)
+			r.add("input_max", 0.35, 0.5, "input peak %s%.1f V at most, a bound from the %s%.1f V reading at high mains and light load: over the %s, but the part runs on the %s%.1f V measured, so the bound weighs lightly", s, bound, s, read, lim, s, read)
 		default:
-			r.add("input_max", 0.9, 0.5, "input peak %.1f V at most, a bound from the %.1f V reading at high mains and light load: within the %s", bound, read, lim)
+			r.add("input_max", 0.9, 0.5, "input peak %s%.1f V at most, a bound from the %s%.1f V reading at high mains and light load: within the %s", s, bound, s, read, lim)
 		}
 		return
 	}
@@ -111,10 +113,10 @@ func termInputMax(sc *scene, h Hypothesis, v voltsView, r *reasons) {
 	}
 	q := peak / limit
 	if q <= 1 {
-		r.add("input_max", 0.9, 0.5, "input peak %.1f V (%s) within the %s", peak, from, lim)
+		r.add("input_max", 0.9, 0.5, "input peak %s%.1f V (%s) within the %s", s, peak, from, lim)
 		return
 	}
-	r.add("input_max", overLimit(q), 0.5, "input peak %.1f V (%s) %s the %s", peak, from, overWords(q), lim)
+	r.add("input_max", overLimit(q), 0.5, "input peak %s%.1f V (%s) %s the %s", s, peak, from, overWords(q), lim)
 }
 
 // readingVetoQ is how far over its running limit a measured input must be
