@@ -44,8 +44,12 @@ func WriteMarkdown(w io.Writer, rec Record, img Images) error {
 	for _, s := range rec.Warnings {
 		m.f("> **Warning:** %s\n\n", esc(s))
 	}
-	m.f("| | |\n| --- | --- |\n| Equipment | %s |\n| Reference | %s |\n| Date | %s |\n| Evidence file | %s |\n| Tool | %s |\n| Catalog | sha256 %s |\n\n",
-		esc(rec.Equipment), esc(ref), rec.Date, esc(rec.EvidenceFile), rec.Tool, rec.CatalogSHA256)
+	m.f("| | |\n| --- | --- |\n")
+	if rec.Equipment != "" {
+		m.f("| Equipment | %s |\n", esc(rec.Equipment)) // no empty row: it would read as a bare heading
+	}
+	m.f("| Reference | %s |\n| Date | %s |\n| Evidence file | %s |\n| Tool | %s |\n| Catalog | sha256 %s |\n\n",
+		esc(ref), rec.Date, esc(rec.EvidenceFile), rec.Tool, rec.CatalogSHA256)
 	m.f("## Safety\n")
 	for _, s := range rec.Safety {
 		m.f("- %s\n", s)

@@ -154,6 +154,12 @@ func TestRecordContents(t *testing.T) {
 			t.Errorf("the record lacks %q", s)
 		}
 	}
+	rec.Equipment = ""
+	md.Reset()
+	_ = record.WriteMarkdown(&md, rec, record.Images{})
+	if strings.Contains(md.String(), "Equipment") {
+		t.Error("an empty equipment is written as a row")
+	}
 	if rec.Conditions.HeatsinkCW == 0 && !strings.Contains(md.String(), "free air") {
 		t.Error("no heat sink is not written as free air")
 	}

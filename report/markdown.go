@@ -56,11 +56,35 @@ func ReflowMarkdown(md string, width int) string {
 				text += " " + nt
 				j++
 			}
-			out = append(out, Wrap(text, width, first, rest)...)
+			out = append(out, wrapMD(text, width, first, rest)...)
 			i = j
 		}
 	}
 	return strings.Join(out, "\n") + "\n"
+}
+
+// blockStart matches text that Markdown reads as the start of a new block
+// at the start of a line: a list marker ("+ 5 mA", "- x", "2. y"), a
+// heading, a quote, a table row, or a setext underline.
+var blockStart = sync.OnceValue(func() *regexp.Regexp {
+	return regexp.MustCompile(`^(([-*+]|\d+[.)])(\s|$)|#{1,6}(\s|$)|>|\||[-=]+$)`)
+})
+
+// wrapMD wraps text like [Wrap] but never breaks a line before a word that
+// would start a new block there: such a word is glued to the word before.
+func wrapMD(text string, width int, first, rest string) []string {
+	return wrap(text, width, first, rest, func(words []string) []string {
+		words = glueUnits(words)
+		out := words[:0:0]
+		for _, w := range words {
+			if n := len(out); n > 0 && blockStart().MatchString(w) {
+				out[n-1] += nbsp + w
+				continue
+			}
+			out = append(out, w)
+		}
+		return out
+	})
 }
 
 // table returns a Markdown table as it is when it fits width, else as a
@@ -107,7 +131,7 @@ func table(rows []string, width int) []string {
 			}
 			item += strings.Join(parts, "; ")
 		}
-		out = append(out, Wrap(item, width, "- ", "  ")...)
+		out = append(out, wrapMD(item, width, "- ", "  ")...)
 	}
 	return out
 }

@@ -143,6 +143,30 @@ func TestSig(t *testing.T) {
 	}
 }
 
+// TestReflowMarkdownNoBlockStart: a wrapped line never starts with what
+// Markdown reads as a list item, heading, quote or setext underline (the
+// CommonMark spec, sections 4.3, 4.2, 5.1 and 5.2).
+func TestReflowMarkdownNoBlockStart(t *testing.T) {
+	for _, in := range []string{
+		"the load is 120 mA at idle and 40 mA more with the relay, + 5 mA for the lamp\n",
+		"- a list item whose text runs long enough to wrap - and then 2. again # and > here\n",
+		"a paragraph that ends on a dash at the wrap point ---- of the page\n",
+	} {
+		for width := 20; width <= 60; width++ {
+			got := ReflowMarkdown(in, width)
+			lines := strings.Split(strings.TrimSuffix(got, "\n"), "\n")
+			for _, l := range lines[1:] {
+				if blockStart().MatchString(strings.TrimSpace(l)) {
+					t.Errorf("width %d: line %q starts a block in %q", width, l, got)
+				}
+			}
+			if strings.Join(strings.Fields(got), " ") != strings.Join(strings.Fields(in), " ") {
+				t.Errorf("width %d: words changed: %q", width, got)
+			}
+		}
+	}
+}
+
 func TestReflowMarkdown(t *testing.T) {
 	in := "# A heading that is long enough to pass the width but stays\n\n" +
 		"A paragraph of several words that runs past the width\nand goes on.\n\n" +

@@ -17,13 +17,19 @@ func Width(s string) int { return utf8.RuneCountInString(s) }
 // a new line. A width too small for the prefixes is treated as room for one
 // character. Wrap returns at least one line.
 func Wrap(text string, width int, first, rest string) []string {
+	return wrap(text, width, first, rest, glueUnits)
+}
+
+// wrap is [Wrap] with glue joining the words that must not be split
+// across lines.
+func wrap(text string, width int, first, rest string, glue func([]string) []string) []string {
 	var lines []string
 	prefix := first
 	for i, para := range strings.Split(text, "\n") {
 		if i > 0 {
 			prefix = rest
 		}
-		words := glueUnits(strings.Fields(para))
+		words := glue(strings.Fields(para))
 		if len(words) == 0 {
 			lines = append(lines, strings.TrimRight(prefix, " "))
 			prefix = rest
