@@ -221,7 +221,7 @@ func checkVinMax(in Input, c cand) (Check, bool) {
 		}
 	}
 	if cd.Source == infer.InputReading && at == cd.PeakAt {
-		boundOnly(&in.Op, &ch, infer.BoundHigh, il.StartV, func(m float64) string {
+		boundOnly(&in.Op, &ch, infer.BoundHigh, il.StartV, s, func(m float64) string {
 			return fmt.Sprintf("the reading itself is %s%.3g V against %s%.0f V", s, m, s, il.StartV)
 		}, " (the highest input is a bound from the meter reading: describe the rectifier to confirm)")
 	}
@@ -232,9 +232,10 @@ func checkVinMax(in Input, c cand) (Check, bool) {
 // a pass (or a warn inside its limit) becomes a warn with passNote; a fail
 // that only the assumed bound makes (the measured value is inside limitV)
 // becomes a warn that says so and how to settle it, keeping the bound's
-// margin; a fail the measured value itself makes stays a fail. measured
-// words the measured value m against the limit.
-func boundOnly(op *infer.Operating, ch *Check, side infer.BoundSide, limitV float64, measured func(m float64) string, passNote string) {
+// margin, with an install note to measure before relying on it; a fail the
+// measured value itself makes stays a fail. measured words the measured
+// value m against the limit; sign is the family's sign text.
+func boundOnly(op *infer.Operating, ch *Check, side infer.BoundSide, limitV float64, sign string, measured func(m float64) string, passNote string) {
 	m, _ := op.Measured(side)
 	switch {
 	case ch.Status == Pass || (ch.Status == Warn && ch.Margin >= 0):
@@ -243,6 +244,10 @@ func boundOnly(op *infer.Operating, ch *Check, side infer.BoundSide, limitV floa
 	case ch.Status == Fail && op.OnlyBoundCrosses(side, limitV):
 		ch.Status = Warn
 		ch.Text += "; only the assumed bound misses it (" + measured(m) + "): " + op.BoundAdvice(side)
+		ch.Action = fmt.Sprintf("input: before relying on it, measure the trough with a scope at full load: it must stay above %s%.2f V", sign, limitV)
+		if side == infer.BoundHigh {
+			ch.Action = fmt.Sprintf("input: before relying on it, measure the input peak at light load: it must stay under %s%.3g V, with room left for high mains", sign, limitV)
+		}
 	case ch.Status == Fail:
 		ch.Text += "; the measurement itself misses it (" + measured(m) + "), whatever feeds the part"
 	}
@@ -262,7 +267,7 @@ func checkDropout(in Input, c cand) (Check, bool) {
 	}
 	ch.Text = fmt.Sprintf("the input falls to %s%.2f V at %s; this part needs %.2f V (its datasheet's worst case) %s the %s%.2f V output", s, cd.TroughV, cd.TroughAt, need, beyond, s, cd.VoutV)
 	if cd.Source == infer.InputReading {
-		boundOnly(&in.Op, &ch, infer.BoundLow, cd.VoutV+need, func(m float64) string {
+		boundOnly(&in.Op, &ch, infer.BoundLow, cd.VoutV+need, s, func(m float64) string {
 			return fmt.Sprintf("the %s%.3g V measured leaves %.2f V against %.2f V needed", s, m, m-cd.VoutV, need)
 		}, "; the lowest input is a bound from the meter reading: measure the trough with a scope at full load to settle it")
 	}
