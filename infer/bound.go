@@ -10,12 +10,15 @@ const (
 	BoundLow BoundSide = iota
 	// BoundHigh is the highest input (the peak): the input maximum.
 	BoundHigh
+	// BoundMean is the highest mean input at full load: dissipation.
+	BoundMean
 )
 
 // Measured returns the input the evidence itself gives at side when the
 // input is bounded from a bare reading: for BoundLow a scope trough when
 // one was measured, else the meter reading; for BoundHigh the meter
-// reading. ok is false when the input is not a bound from a reading.
+// reading (also for BoundMean). ok is false when the input is not a bound
+// from a reading.
 func (op *Operating) Measured(side BoundSide) (v float64, ok bool) {
 	if op.Source != InputReading || op.ReadingV == 0 {
 		return 0, false
@@ -38,8 +41,11 @@ func (op *Operating) OnlyBoundCrosses(side BoundSide, limitV float64) bool {
 	if !ok {
 		return false
 	}
-	if side == BoundLow {
+	switch side {
+	case BoundLow:
 		return op.Trough.V < limitV && m >= limitV
+	case BoundMean:
+		return false // dissipation is settled by the check itself (replace's thermal check)
 	}
 	return op.Peak.V > limitV && m <= limitV
 }
@@ -48,8 +54,11 @@ func (op *Operating) OnlyBoundCrosses(side BoundSide, limitV float64) bool {
 // bound from a single reading, and how the technician settles it.
 func (op *Operating) BoundAdvice(side BoundSide) string {
 	measure := "measure the trough with a scope at full load"
-	if side == BoundHigh {
+	switch side {
+	case BoundHigh:
 		measure = "measure the peak at light load (a scope, or a meter with the load disconnected)"
+	case BoundMean:
+		measure = "measure the input with a meter at full load and allow for high mains"
 	}
 	return fmt.Sprintf("this rests on an assumed mains-rectifier bound from the single %.3g V reading: describe [input] (rectifier, secondary and filter, or rectifier = \"dc\" with dc_volts_min/max for a battery or DC supply) or %s to settle it", op.ReadingV, measure)
 }

@@ -62,6 +62,9 @@ func checkThermal(in Input, c cand) (Check, bool) {
 		where = fmt.Sprintf("at full load with %.2f V in, the worst point of the bypass resistor's share", c.atV)
 	}
 	ch.Text = fmt.Sprintf("%.2f W %s through %s, from %g °C ambient", c.powerW, where, path, cd.AmbientC)
+	if st == Fail && thermalBoundOnly(in, c, theta, &ch) {
+		return ch, true
+	}
 	smd := c.Outline != nil && c.Outline.SMD
 	if st == Fail && c.powerW > 0 && !smd && !f.Switching() && c.Outline != nil && (c.Outline.Tab || c.Outline.MetalCan) {
 		sa, err := circuit.RequiredThetaSA(c.powerW, cd.AmbientC, f.TjMaxC-15, c.Package.ThetaJC, c.thetaCS)
@@ -85,6 +88,43 @@ func checkThermal(in Input, c cand) (Check, bool) {
 		}
 	}
 	return ch, true
+}
+
+// thermalBoundOnly settles a failing thermal check when the input is only
+// bounded from a bare meter reading: the reading itself is hard evidence,
+// the high-mains bound an assumption (as [boundOnly] does for dropout and
+// the input maximum). When the dissipation at the measured input keeps the
+// junction inside its limit, the check becomes a warn that keeps the
+// bound's margin, says so and how to settle it, and reports true. A
+// failure at the measured input itself stays a fail (false).
+func thermalBoundOnly(in Input, c cand, theta float64, ch *Check) bool {
+	cd := &in.Cond
+	m, ok := in.Op.Measured(infer.BoundMean)
+	if cd.Source != infer.InputReading || !ok || c.Family.Switching() {
+		return false
+	}
+	m = math.Abs(m)
+	var w float64
+	if cd.BypassOhm > 0 {
+		b := circuit.Bypass{ROhm: cd.BypassOhm, VinMinV: m, VinMaxV: m, VoutV: cd.VoutV, LoadMaxA: in.RegLoadA}
+		w, _ = b.RegulatorPowerMax(c.Family.GroundCurrentA(in.RegLoadA))
+	} else {
+		w = circuit.RegulatorDissipation(m, cd.VoutV, in.RegLoadA, c.Family.GroundCurrentA(in.RegLoadA))
+	}
+	tj := cd.AmbientC + w*theta
+	if tj > c.Family.TjMaxC {
+		ch.Text += fmt.Sprintf("; at the %.3g V measured it still dissipates %.2f W (Tj %.0f °C), whatever feeds the part", m, w, tj)
+		return false
+	}
+	ch.Status = Warn
+	ch.Text += fmt.Sprintf("; only the assumed bound misses it (at the %.3g V measured: %.2f W, Tj %.0f °C): %s", m, w, tj, in.Op.BoundAdvice(infer.BoundMean))
+	ch.Action = "input: before relying on it, measure the input at full load and allow for high mains"
+	if in.RegLoadA > 0 && theta > 0 {
+		// The input at which the junction reaches its limit at full load
+		// (ground current left out: it is small beside the load).
+		ch.Action = fmt.Sprintf("input: before relying on it, measure the input at full load: with high mains allowed for it must stay under about %.3g V, where the junction reaches %g °C", cd.VoutV+(c.Family.TjMaxC-cd.AmbientC)/(theta*in.RegLoadA), c.Family.TjMaxC)
+	}
+	return true
 }
 
 // esrEstimate is the typical ESR of a capacitor by type and value, ohms,

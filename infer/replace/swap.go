@@ -215,10 +215,13 @@ func originalShortfalls(in *Input, orig infer.Original, all []Replacement) []Sho
 		case ch.Status == Fail:
 			failed[ch.Name] = &ch
 			out = append(out, Shortfall{Check: ch, cond: in.Cond})
-		case ch.Status == Warn && ch.Margin < 0 && in.Cond.Source == infer.InputReading && (ch.Name == CheckDropout || ch.Name == CheckVinMax):
+		case ch.Status == Warn && ch.Margin < 0 && in.Cond.Source == infer.InputReading && (ch.Name == CheckDropout || ch.Name == CheckVinMax || ch.Name == CheckThermal):
 			side := infer.BoundLow
-			if ch.Name == CheckVinMax {
+			switch ch.Name {
+			case CheckVinMax:
 				side = infer.BoundHigh
+			case CheckThermal:
+				side = infer.BoundMean
 			}
 			onBound[ch.Name] = &ch
 			out = append(out, Shortfall{Check: ch, cond: in.Cond, OnBound: true, advice: in.Op.BoundAdvice(side)})
