@@ -153,6 +153,10 @@ type Family struct {
 	VinMaxHighV float64 `toml:"vin_max_high_v" json:"vin_max_high_v,omitempty"`
 	// VinMaxHighFromV is the output voltage from which VinMaxHighV applies.
 	VinMaxHighFromV float64 `toml:"vin_max_high_from_v" json:"vin_max_high_from_v,omitempty"`
+	// TransientMaxV is the surge (a car's load dump) the datasheet rates the
+	// input to survive for a short time, volts (magnitude), above the steady
+	// maximum; 0 = no transient rating, the absolute maximum holds for surges too.
+	TransientMaxV float64 `toml:"transient_max_v" json:"transient_max_v,omitempty"`
 	// VdiffMaxV is an adjustable part's maximum input-output differential, volts.
 	VdiffMaxV float64 `toml:"vdiff_max_v" json:"vdiff_max_v"`
 	// DropoutV is the worst-case input-output differential at rated current, volts.

@@ -144,6 +144,7 @@ func lintFamily(c *Catalog, f *Family, errs *ErrorList) {
 		val float64
 	}{{"iq_ma", f.IqMA}, {"iq_typ_ma", f.IqTypMA}, {"iadj_ua", f.IadjUA}, {"iadj_typ_ua", f.IadjTypUA}, {"min_load_ma", f.MinLoadMA},
 		{"vin_max_v", f.VinMaxV}, {"vdiff_max_v", f.VdiffMaxV}, {"vout_max_v", f.VoutMaxV}, {"vin_max_high_v", f.VinMaxHighV},
+		{"transient_max_v", f.TransientMaxV},
 		{"cout.min_uf", f.Cout.MinUF}, {"cout.max_uf", f.Cout.MaxUF}, {"cout.esr_min_ohm", f.Cout.ESRMinOhm}, {"cout.esr_max_ohm", f.Cout.ESRMaxOhm}} {
 		if v.val < 0 || bad(v.val) || v.val > 1e4 {
 			p.add(errs, v.key, "%s = %g is impossible; values are positive magnitudes (polarity gives the sign)", v.key, v.val)
@@ -184,6 +185,9 @@ func lintFamily(c *Catalog, f *Family, errs *ErrorList) {
 				p.add(errs, "vin_max_v", "vin_max_v %g V is below the highest output %g V plus dropout %g V; check the datasheet (is vin_max_high_v missing?)", limit, maxOut, f.DropoutV)
 			}
 		}
+		if f.TransientMaxV > 0 && f.TransientMaxV <= f.VinMax(maxOut) {
+			p.add(errs, "transient_max_v", "transient_max_v %g V is not above the input maximum %g V; give the datasheet's surge rating, or leave it out", f.TransientMaxV, f.VinMax(maxOut))
+		}
 		if f.VrefV != 0 {
 			p.add(errs, "vref_v", "vref_v is for adjustable families; a fixed family lists outputs_v")
 		}
@@ -193,6 +197,9 @@ func lintFamily(c *Catalog, f *Family, errs *ErrorList) {
 		}
 		if f.VdiffMaxV <= 0 {
 			p.add(errs, "vdiff_max_v", "an adjustable family needs vdiff_max_v, the maximum input-output differential")
+		}
+		if f.TransientMaxV != 0 {
+			p.add(errs, "transient_max_v", "transient_max_v is for fixed families; an adjustable part is limited by vdiff_max_v")
 		}
 		if len(f.OutputsV) > 0 {
 			p.add(errs, "outputs_v", "outputs_v is for fixed families; an adjustable family gives vref_v (and vout_max_v)")

@@ -45,6 +45,7 @@ current_a = 1.0                 # rated output current, amperes
 vin_max_v = 35                  # fixed: absolute maximum input, volts
 vin_max_high_v = 0              # fixed: the limit of the higher-voltage members
 vin_max_high_from_v = 0         # ... from this output voltage up
+transient_max_v = 0             # fixed: a rated surge (load dump) above vin_max_v; 0 = none
 vdiff_max_v = 0                 # adjustable: maximum input-output differential
 dropout_v = 2.0                 # worst-case input-output difference at rated current
 iq_ma = 8.0                     # fixed: ground-lead current, maximum, mA

@@ -19,7 +19,7 @@ func likelihoodTerms() []term {
 		termPackage, termOutline, termWiring, termCase, termMounting,
 		termRegulation, termOutputOnly, termPolarity, termHeadroom, termBenchDropout,
 		termControlDrop, termConduction, termShunt,
-		termCurrent, termBenchLoad, termInputMax, termDivider, termCommonParts, termTrimmer,
+		termCurrent, termBenchLoad, termInputMax, termTransient, termDivider, termCommonParts, termTrimmer,
 		termMarking,
 	}
 }

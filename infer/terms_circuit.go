@@ -241,3 +241,32 @@ func termBenchLoad(sc *scene, h Hypothesis, _ voltsView, r *reasons) {
 		r.add("bench.holds_amps", 0.08, 0.3, "gave up above %.3g A on the test load, below the %.3g A rating (unlikely for this part unless its input sagged)", b.HoldsAmps.V, rating)
 	}
 }
+
+// termTransient weighs a stated surge (a car's load dump) that the original
+// has lived through against the part's surge rating (the catalog's
+// transient_max_v, else its running limit): a part rated for the steady
+// input only would not have lasted. A stated surge may be the technician's
+// requirement rather than a measurement, so it weighs mildly (common
+// practice, no source).
+func termTransient(sc *scene, h Hypothesis, _ voltsView, r *reasons) {
+	f := h.Family
+	tv := sc.input.TransientV
+	il := f.InputLimit(h.VoutV)
+	limit, what := il.RunV, il.What
+	if tv <= 0 || limit <= 0 || f.NonRegulator() {
+		return
+	}
+	if !f.Adjustable() && f.TransientMaxV > limit {
+		limit, what = f.TransientMaxV, "transient (load dump) rating"
+	}
+	s := f.SignText()
+	q := tv / limit
+	switch {
+	case q <= 1:
+		r.add("transient", 0.9, 0.5, "stated transient %s%.0f V within the %s%.0f V %s", s, tv, s, limit, what)
+	case q <= 1.15:
+		r.add("transient", 0.3, 0.5, "stated transient %s%.0f V just over the %s%.0f V %s: it would have been at risk at every surge", s, tv, s, limit, what)
+	default:
+		r.add("transient", 0.15, 0.5, "stated transient %s%.0f V over the %s%.0f V %s: a part without a surge rating for it would not have lasted", s, tv, s, limit, what)
+	}
+}

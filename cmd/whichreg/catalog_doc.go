@@ -24,6 +24,7 @@ type familyDoc struct {
 	VinMaxV         *float64     `json:"vin_max_v"`
 	VinMaxHighV     *float64     `json:"vin_max_high_v"`
 	VinMaxHighFromV *float64     `json:"vin_max_high_from_v"`
+	TransientMaxV   *float64     `json:"transient_max_v"`
 	VdiffMaxV       *float64     `json:"vdiff_max_v"`
 	DropoutV        float64      `json:"dropout_v"`
 	IqA             *float64     `json:"iq_a"`
@@ -96,7 +97,8 @@ func familyDocOf(f *catalog.Family) familyDoc {
 	d := familyDoc{ID: f.ID, Title: f.Title, Polarity: string(f.Polarity), Kind: string(f.Kind), Device: orNull(string(f.Device)),
 		Pass: string(f.Pass), OutputsV: []float64{}, VrefV: positive(f.VrefV, 1), VoutMaxV: positive(f.VoutMaxV, 1),
 		Tolerance: f.Tolerance, CurrentA: f.CurrentA, VinMaxV: positive(f.VinMaxV, 1), VinMaxHighV: positive(f.VinMaxHighV, 1),
-		VinMaxHighFromV: positive(f.VinMaxHighFromV, 1), VdiffMaxV: positive(f.VdiffMaxV, 1), DropoutV: f.DropoutV,
+		VinMaxHighFromV: positive(f.VinMaxHighFromV, 1), TransientMaxV: positive(f.TransientMaxV, 1),
+		VdiffMaxV: positive(f.VdiffMaxV, 1), DropoutV: f.DropoutV,
 		IqA: positive(f.IqMA, 1e-3), IqTypA: positive(f.IqTypMA, 1e-3), IadjA: positive(f.IadjUA, 1e-6), IadjTypA: positive(f.IadjTypUA, 1e-6),
 		MinLoadA: round(f.MinLoadMA*1e-3, 12), TjMaxC: f.TjMaxC, Efficiency: positive(f.Efficiency, 1), Status: string(f.Status),
 		Commonness: f.Commonness, Markings: nonNil(f.Markings), Source: f.Source, Notes: nonNil(f.Notes), Packages: []packageDoc{},

@@ -149,6 +149,9 @@ func writeFamily(w io.Writer, width int, c *catalog.Catalog, f *catalog.Family) 
 		if f.VinMaxHighV > 0 {
 			in += " (" + report.Num(f.VinMaxHighV, "V") + " for " + report.Num(f.VinMaxHighFromV, "V") + " and up)"
 		}
+		if f.TransientMaxV > 0 {
+			in += ", " + report.Num(f.TransientMaxV, "V") + " transient (load dump)"
+		}
 		field(w, width, "input", in)
 		field(w, width, "ground current", report.Num(f.IqMA*1e-3, "A")+" max"+typ(f.IqTypMA*1e-3, "A"))
 	}

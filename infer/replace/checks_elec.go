@@ -207,13 +207,23 @@ func checkVinMax(in Input, c cand) (Check, bool) {
 	}
 	s := f.SignText()
 	peak, at := cd.PeakV, cd.PeakAt
+	limit, what := il.StartV, il.What
+	m := 1 - peak/limit
 	if cd.TransientV > peak {
-		peak, at = cd.TransientV, "the stated transient (no transient rating in the catalog: held to the absolute maximum)"
+		// A surge is held to the datasheet's transient rating where it has
+		// one (an automotive LDO's load dump), else to the absolute maximum;
+		// the steady peak still answers to the steady maximum.
+		tl, tat, twhat := il.StartV, "the stated transient (no transient rating in the catalog: held to the absolute maximum)", il.What
+		if !f.Adjustable() && f.TransientMaxV > il.StartV {
+			tl, tat, twhat = f.TransientMaxV, "the stated transient", "transient (load dump) rating"
+		}
+		if tm := 1 - cd.TransientV/tl; tm < m {
+			peak, at, limit, what, m = cd.TransientV, tat, tl, twhat, tm
+		}
 	}
-	m := 1 - peak/il.StartV
-	ch := Check{Name: CheckVinMax, Unit: "V", Value: num(f.Signed(peak)), Limit: num(f.Signed(il.StartV)), Margin: m, Status: status(m, 0.05),
-		ValueText: fmt.Sprintf("%s%.1f V", s, peak), LimitText: fmt.Sprintf("%s%.0f V %s", s, il.StartV, il.What)}
-	ch.Text = fmt.Sprintf("%s%.1f V at %s against the %s", s, peak, at, il.What)
+	ch := Check{Name: CheckVinMax, Unit: "V", Value: num(f.Signed(peak)), Limit: num(f.Signed(limit)), Margin: m, Status: status(m, 0.05),
+		ValueText: fmt.Sprintf("%s%.1f V", s, peak), LimitText: fmt.Sprintf("%s%.0f V %s", s, limit, what)}
+	ch.Text = fmt.Sprintf("%s%.1f V at %s against the %s", s, peak, at, what)
 	if f.Adjustable() {
 		ch.Text = fmt.Sprintf("%s%.1f V at %s against the %g V %s: at switch-on into the discharged output capacitor, or with the output shorted, the whole input appears across the part", s, peak, at, f.VdiffMaxV, il.What)
 		if ch.Status == Fail {
