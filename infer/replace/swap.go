@@ -191,9 +191,15 @@ func afterPowerUp(in Input, c cand) []string {
 			out = fmt.Sprintf("%s%.2f V (a typical part, light load) to %s%.2f V (worst case, full load) as the ground current lifts it, with the part's own ±%g %% (±%.2f V) on top", s, lo, s, hi, c.Family.Tolerance*100, c.Family.Tolerance*c.VoutV)
 		}
 	}
+	heat := fmt.Sprintf("after 10 minutes at full load: case about %.0f °C (expect within 10 °C); do not touch it bare-handed", tcase)
+	if tj := cd.AmbientC + c.powerW*theta; tj > c.Family.TjMaxC {
+		// The model puts the junction past its limit: the mounting or load
+		// assumed is not the board's, so no case temperature is predicted.
+		heat = fmt.Sprintf("heat: on the mounting and load as described the junction would pass its %g °C limit, so no case temperature is predicted; settle the mounting first (see above), then run at a light load and check the case with a thermocouple, not a finger, before full load", c.Family.TjMaxC)
+	}
 	return []string{
 		fmt.Sprintf("after power-up: output %s; ripple at the output a few mV (a scope, AC-coupled)", out),
-		fmt.Sprintf("after 10 minutes at full load: case about %.0f °C (expect within 10 °C); do not touch it bare-handed", tcase),
+		heat,
 	}
 }
 
