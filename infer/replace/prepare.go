@@ -151,6 +151,14 @@ func Prepare(ev *infer.Evidence, orig infer.Original) (*Input, []string, error) 
 			in.RegLoadA = math.Min(cd.LoadMaxA, boosterVBEV/b.RSenseOhms.V)
 			as = append(as, fmt.Sprintf("external pass transistor: the regulator carries at most %.2g V / %s = %.3g A of the load (the transistor's turn-on voltage taken as %.2g V)",
 				boosterVBEV, ohms(b.RSenseOhms.V), in.RegLoadA, boosterVBEV))
+			if cd.Source != infer.InputReading {
+				// The described supply feeds the sense resistor, not the
+				// regulator: at full load its IN lead sits the resistor's
+				// drop (up to the transistor's VBE) lower.
+				drop := math.Min(cd.LoadMaxA*b.RSenseOhms.V, boosterVBEV)
+				cd.TroughV -= drop
+				cd.TroughAt += fmt.Sprintf(", less %.2g V across the booster's sense resistor", drop)
+			}
 		} else {
 			as = append(as, "external pass transistor without its sense resistor: the regulator is taken to carry the whole load (give [booster] r_sense_ohms)")
 		}
