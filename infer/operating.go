@@ -101,6 +101,9 @@ type OperatingOptions struct {
 	// AssumedLoadA is the full load taken when the evidence gives none
 	// (replacement passes the original's rating); 0 means 0.1 A.
 	AssumedLoadA float64
+	// AssumedLoadWhy replaces the note that says where AssumedLoadA comes
+	// from ("" = the original's rating).
+	AssumedLoadWhy string
 }
 
 // Filter-capacitor and bare-reading assumptions, shared by every use of the
@@ -138,6 +141,9 @@ func OperatingPoint(ev *Evidence, opts OperatingOptions) (*Operating, error) {
 	switch {
 	case out != nil && out.Amps.Set && out.Amps.V > 0:
 		op.LoadMaxA = out.Amps.V
+	case opts.AssumedLoadA > 0 && opts.AssumedLoadWhy != "":
+		op.LoadMaxA, op.LoadAssumed = opts.AssumedLoadA, true
+		op.note("%s", opts.AssumedLoadWhy)
 	case opts.AssumedLoadA > 0:
 		op.LoadMaxA, op.LoadAssumed = opts.AssumedLoadA, true
 		op.note("load not given: the original's rating %.3g A is taken as the full load in the input model and in every check", opts.AssumedLoadA)

@@ -9,6 +9,9 @@ import (
 )
 
 func checkVout(in Input, c cand) (Check, bool) {
+	if in.SourceA > 0 {
+		return checkSourceCurrent(in, c), true
+	}
 	f, of, cd := c.Family, in.Orig.Family, &in.Cond
 	target := cd.VoutV
 	s := f.SignText()

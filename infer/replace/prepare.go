@@ -90,6 +90,9 @@ type Input struct {
 	Cond Conditions      // the conditions every candidate is checked under
 	// Network is the original's common-lead network (nil when none).
 	Network *Network
+	// SourceA is the current the original sets when it is wired as a
+	// current source ([infer.CurrentSourceA]); 0 = a voltage regulator.
+	SourceA float64
 	// Lifted is true when a fixed original sits on a common-lead network.
 	Lifted bool
 	Cap    Cap
@@ -120,7 +123,13 @@ func Prepare(ev *infer.Evidence, orig infer.Original) (*Input, []string, error) 
 	if cd.VoutV == 0 {
 		return nil, nil, fmt.Errorf("the output voltage is unknown: give the OUT lead's volts or the [network] resistors")
 	}
-	op, err := infer.OperatingPoint(ev, infer.OperatingOptions{Sweep: infer.SweepAll, AssumedLoadA: orig.Family.Current(orig.Package)})
+	opts := infer.OperatingOptions{Sweep: infer.SweepAll, AssumedLoadA: orig.Family.Current(orig.Package)}
+	if ia, ok := infer.CurrentSourceA(orig.Hypothesis, ev); ok {
+		in.SourceA = ia
+		opts.AssumedLoadA = ia
+		opts.AssumedLoadWhy = fmt.Sprintf("load not given: the part is wired as a current source (%s from OUT to its common lead, which feeds the load), so the load is taken as the current it sets, %.3g A, in the input model and in every check; the output's voltage follows the load", ohms(ev.Network.RTopOhms.V), ia)
+	}
+	op, err := infer.OperatingPoint(ev, opts)
 	if err != nil {
 		return nil, nil, err
 	}

@@ -191,6 +191,10 @@ func afterPowerUp(in Input, c cand) []string {
 			out = fmt.Sprintf("%s%.2f V (a typical part, light load) to %s%.2f V (worst case, full load) as the ground current lifts it, with the part's own ±%g %% (±%.2f V) on top", s, lo, s, hi, c.Family.Tolerance*100, c.Family.Tolerance*c.VoutV)
 		}
 	}
+	if in.SourceA > 0 {
+		// A current source: its output voltage follows the load.
+		out = fmt.Sprintf("the set current, about %.3g A into the load (a meter in series with the load, or the drop across the OUT resistor), not a voltage", in.SourceA)
+	}
 	heat := fmt.Sprintf("after 10 minutes at full load: case about %.0f °C (expect within 10 °C); do not touch it bare-handed", tcase)
 	if tj := cd.AmbientC + c.powerW*theta; tj > c.Family.TjMaxC {
 		// The model puts the junction past its limit: the mounting or load
