@@ -261,12 +261,15 @@ func (sc *scene) reversedLeads(res *Result) []string {
 	if (pos > 0) == (neg > 0) || pos+neg < 2 || len(res.Candidates) == 0 {
 		return nil
 	}
-	// Only when nothing explains the readings as they are.
-	if lead := res.Candidates[0]; res.NotInCatalog < lead.Probability && !hasVeto(lead) {
+	// Only when nothing explains the readings as they are: a leader that
+	// contradicts the named package at a glance (a TO-92 for the TO-220 in
+	// the technician's hand) explains nothing either.
+	if lead := res.Candidates[0]; res.NotInCatalog < lead.Probability && !hasVeto(lead) && !packageAtGlance(lead) {
 		return nil
 	}
 	best := map[bool]float64{true: math.Inf(-1), false: math.Inf(-1)}
 	label := map[bool]string{}
+	miss := map[bool]float64{true: math.Inf(1), false: math.Inf(1)}
 	for _, c := range res.Candidates {
 		if c.Family.NonRegulator() {
 			continue
@@ -279,8 +282,10 @@ func (sc *scene) reversedLeads(res *Result) []string {
 				any = true
 			}
 		}
-		if any && s > best[c.Family.Negative()] {
-			best[c.Family.Negative()], label[c.Family.Negative()] = s, c.name()
+		// Among equal wiring scores, name the voltage the readings show.
+		neg := c.Family.Negative()
+		if d := outputMiss(sc.ev, c); any && (s > best[neg]+1e-9 || s > best[neg]-1e-9 && d < miss[neg]) {
+			best[neg], label[neg], miss[neg] = s, c.name(), d
 		}
 	}
 	readNeg := neg > 0
@@ -293,6 +298,28 @@ func (sc *scene) reversedLeads(res *Result) []string {
 	}
 	return []string{fmt.Sprintf("every lead reads %s, but the wiring fits a %s regulator (%s) far better: "+
 		"check the meter's common lead (black on board ground, red on the lead): swapped leads flip every sign", sign, other, label[!readNeg])}
+}
+
+// outputMiss is how far c's output magnitude is from the OUT-to-common
+// reading's magnitude, volts (+Inf when either is unknown).
+func outputMiss(ev *Evidence, c Candidate) float64 {
+	tv := terminalVolts(c.Hypothesis, ev)
+	out, ok := tv[catalog.PinOut]
+	if !ok || c.VoutV == 0 {
+		return math.Inf(1)
+	}
+	common := tv[catalog.PinGnd]
+	if c.Family.Adjustable() {
+		common = tv[catalog.PinAdj]
+	}
+	return math.Abs(math.Abs(out-common) - math.Abs(c.VoutV))
+}
+
+// packageAtGlance reports whether c's package reason contradicts the named
+// package at a glance or in its lead count ([packageConfusion]).
+func packageAtGlance(c Candidate) bool {
+	w, ok := weightOf(c, "package")
+	return ok && w <= math.Log(pGlance/pFlatPackage)+1e-9
 }
 
 func weightOf(c Candidate, key string) (float64, bool) {

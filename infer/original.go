@@ -111,6 +111,11 @@ func ChooseOriginal(res *Result, named *Hypothesis) (Original, error) {
 	if res.NotInCatalog > lead.Probability {
 		return Original{}, fmt.Errorf("%w (not in the catalog %.0f %%, leader %s %.0f %%)", ErrNotInCatalog, 100*res.NotInCatalog, lead.Label(), 100*lead.Probability)
 	}
+	if packageAtGlance(lead) {
+		// A leader in an outline nobody would mistake for the one named
+		// fits nothing the technician holds.
+		return Original{}, fmt.Errorf("%w: the leader %s (%.0f %%) is not the package named, and no part in the named package fits the readings; check the readings (the meter's polarity, the lead numbering) or name the part with --original", ErrNotInCatalog, lead.Label(), 100*lead.Probability)
+	}
 	o := Original{Hypothesis: lead.Hypothesis, Probability: lead.Probability}
 	return o, nonRegulator(o)
 }
