@@ -102,6 +102,15 @@ func termPackage(sc *scene, h Hypothesis, _ voltsView, r *reasons) {
 		return
 	}
 	p, why := packageConfusion(ev.Package, sc.c.Outline(ev.Package), o)
+	if p <= pGlance {
+		// Nobody writes TO-220 for a TO-92 or TO-39 for a TO-3: a variant
+		// the technician could not have mistaken for the named package
+		// must not lead on the strength of its readings (common practice,
+		// no source). A near-veto sends the mass to the named outline's
+		// families, the look-alikes or "not in the catalog".
+		r.veto("package", "package %s named, and a %s cannot be mistaken for it (%s)", ev.Package, o.Name, why)
+		return
+	}
 	r.add("package", p, pFlatPackage, "package %s named, but this variant is %s: %s", ev.Package, o.Name, why)
 }
 
