@@ -36,7 +36,8 @@
 // board (one outline, pinout and tab; another rating or maker) share their
 // outline's prior and rank as one candidate (variants.go). A named package
 // costs by how easily it is written for the variant's outline (a name a
-// character apart, the same kind, a difference seen at a glance); with no
+// character apart, the same kind); a variant that differs from the named
+// package at a glance or in its lead count is a near-veto; with no
 // [input] described, the input reading itself weighs against the part's
 // limit, the bound taken from it only lightly. Cross-checks (checks.go)
 // list conflicts without failing: a slip in the transformer figure, a
