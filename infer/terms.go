@@ -64,6 +64,15 @@ func (r *reasons) add(key string, p, flat float64, format string, args ...any) {
 	r.rs = append(r.rs, x)
 }
 
+// say formats a reason's text, or returns "" when no text is wanted (the
+// ranking of every hypothesis needs only the weights).
+func (r *reasons) say(format string, args ...any) string {
+	if !r.text {
+		return ""
+	}
+	return fmt.Sprintf(format, args...)
+}
+
 // veto appends a near-veto: evidence the hypothesis cannot produce. See
 // [reasons.settle] for its weight.
 func (r *reasons) veto(key string, format string, args ...any) {
