@@ -155,21 +155,27 @@ func Identify(c *catalog.Catalog, ev *Evidence, opts Options) (*Result, error) {
 	cands := make([]Candidate, len(hyps))
 	priorMass := 0.0
 	evidenceUsed := false
+	// Every candidate's reasons share one array (each slice capped at its
+	// own length, so a later append copies): one allocation, not four, per
+	// hypothesis.
+	arena := make([]Reason, 0, 12*len(hyps))
 	for i, h := range hyps {
-		rs := priorReasons(h, ev, c, sc.text)
+		start := len(arena)
+		arena = appendPriorReasons(arena, h, ev, c, sc.text)
 		// The not-in-catalog prior is a share of the catalog's mass before
 		// the era: when every family is younger than the equipment, the
 		// part is likelier something the catalog lacks.
 		prior := 0.0
-		for _, r := range rs {
+		for _, r := range arena[start:] {
 			if r.Evidence == "prior" {
 				prior += r.Weight
 			}
 		}
 		priorMass += math.Exp(prior)
-		ls := sc.likelihoods(h)
-		evidenceUsed = evidenceUsed || len(ls) > 0
-		rs = append(rs, ls...)
+		np := len(arena)
+		arena = sc.appendLikelihoods(arena, h)
+		evidenceUsed = evidenceUsed || len(arena) > np
+		rs := arena[start:len(arena):len(arena)]
 		score := 0.0
 		for _, r := range rs {
 			score += r.Weight

@@ -16,6 +16,12 @@ const pNICPrior = 0.03
 // practice, no source), shared among its packages by outline commonness and
 // among its voltages by [voltageWeight], and the era.
 func priorReasons(h Hypothesis, ev *Evidence, c *catalog.Catalog, text bool) []Reason {
+	return appendPriorReasons(nil, h, ev, c, text)
+}
+
+// appendPriorReasons appends [priorReasons] to rs, so that identification's
+// loop over the hypotheses can keep every candidate's reasons in one array.
+func appendPriorReasons(rs []Reason, h Hypothesis, ev *Evidence, c *catalog.Catalog, text bool) []Reason {
 	f := h.Family
 	nv := 1
 	if !f.Adjustable() {
@@ -27,7 +33,7 @@ func priorReasons(h Hypothesis, ev *Evidence, c *catalog.Catalog, text bool) []R
 		}
 		return fmt.Sprintf(format, args...)
 	}
-	rs := []Reason{{"prior", float64(f.Commonness-1) * math.Log(3), say("commonness %d of 5", f.Commonness)}}
+	rs = append(rs, Reason{"prior", float64(f.Commonness-1) * math.Log(3), say("commonness %d of 5", f.Commonness)})
 	// Each outline carries its weight once, shared by the variants sold in
 	// it (two ratings of one SOT-223 carry the mass one would).
 	total, variants := 0.0, 0

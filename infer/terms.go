@@ -50,6 +50,7 @@ const typicalHeadroom = 0.8
 // only when asked (the text costs more than the arithmetic).
 type reasons struct {
 	rs     []Reason
+	start  int // rs[:start] belong to the caller (the prior), not to the terms
 	text   bool
 	vetoAt int // index of the first near-veto, -1 = none
 }
@@ -61,6 +62,15 @@ func (r *reasons) add(key string, p, flat float64, format string, args ...any) {
 		x.Text = fmt.Sprintf(format, args...)
 	}
 	r.rs = append(r.rs, x)
+}
+
+// say formats a reason's text, or returns "" when no text is wanted (the
+// ranking of every hypothesis needs only the weights).
+func (r *reasons) say(format string, args ...any) string {
+	if !r.text {
+		return ""
+	}
+	return fmt.Sprintf(format, args...)
 }
 
 // veto appends a near-veto: evidence the hypothesis cannot produce. See
@@ -82,8 +92,8 @@ func (r *reasons) settle() {
 		return
 	}
 	support := 0.0
-	for i, x := range r.rs {
-		if i != r.vetoAt && x.Weight > 0 {
+	for i, x := range r.rs[r.start:] {
+		if r.start+i != r.vetoAt && x.Weight > 0 {
 			support += x.Weight
 		}
 	}
@@ -99,7 +109,13 @@ func (r *reasons) settle() {
 
 // likelihoods returns the evidence terms for h.
 func (sc *scene) likelihoods(h Hypothesis) []Reason {
-	r := &reasons{rs: make([]Reason, 0, 16), text: sc.text, vetoAt: -1}
+	return sc.appendLikelihoods(make([]Reason, 0, 16), h)
+}
+
+// appendLikelihoods appends [scene.likelihoods] to dst; a near-veto is
+// settled against the appended terms only.
+func (sc *scene) appendLikelihoods(dst []Reason, h Hypothesis) []Reason {
+	r := &reasons{rs: dst, start: len(dst), text: sc.text, vetoAt: -1}
 	v := viewOf(h, sc.ev)
 	for _, t := range likelihoodTerms() {
 		t(sc, h, v, r)

@@ -1,7 +1,6 @@
 package infer
 
 import (
-	"fmt"
 	"math"
 
 	"github.com/whichreg/whichreg/infer/circuit"
@@ -32,13 +31,13 @@ func termCurrent(sc *scene, h Hypothesis, v voltsView, r *reasons) {
 		return // the booster's share is unknown: the load says nothing of the part
 	case b != nil:
 		ireg = math.Min(i, boosterVBE/b.RSenseOhms.V)
-		text = fmt.Sprintf("part current %.3f A (%.3f A load; the booster takes over above %.2f V across %s) against %.3g A rated",
+		text = r.say("part current %.3f A (%.3f A load; the booster takes over above %.2f V across %s) against %.3g A rated",
 			ireg, i, boosterVBE, ohmsText(b.RSenseOhms.V), f.Current(h.Package))
 	case ev.Bypass != nil && ev.Bypass.Ohms.V > 0 && v.haveIn && v.haveOut:
 		br, err := (circuit.Bypass{ROhm: ev.Bypass.Ohms.V, VinMinV: math.Abs(v.in), VinMaxV: math.Abs(v.in), VoutV: math.Abs(v.out), LoadMinA: i, LoadMaxA: i}).Solve()
 		if err == nil && br.ResistorMinA > 0 {
 			ireg = math.Max(0, i-br.ResistorMinA)
-			text = fmt.Sprintf("part current %.3f A (%.3f A load less %.3f A through the bypass resistor) against %.3g A rated", ireg, i, br.ResistorMinA, f.Current(h.Package))
+			text = r.say("part current %.3f A (%.3f A load less %.3f A through the bypass resistor) against %.3g A rated", ireg, i, br.ResistorMinA, f.Current(h.Package))
 		}
 	}
 	rating := f.Current(h.Package)
@@ -46,7 +45,7 @@ func termCurrent(sc *scene, h Hypothesis, v voltsView, r *reasons) {
 		return
 	}
 	if text == "" {
-		text = fmt.Sprintf("part current %.3f A against %.3g A rated", ireg, rating)
+		text = r.say("part current %.3f A against %.3g A rated", ireg, rating)
 	}
 	q := ireg / rating
 	// Designers leave margin below the rating and seldom use a large part
@@ -80,13 +79,13 @@ func termInputMax(sc *scene, h Hypothesis, v voltsView, r *reasons) {
 		return
 	}
 	s := f.SignText() // negative rails keep their sign in every figure
-	lim := fmt.Sprintf("%s%.0f V %s", s, limit, il.What)
+	lim := r.say("%s%.0f V %s", s, limit, il.What)
 	switch {
 	case f.NonRegulator():
 		s = ""
-		lim = fmt.Sprintf("%.0f V voltage rating", limit)
+		lim = r.say("%.0f V voltage rating", limit)
 	case f.Adjustable() && h.VoutV > 0 && limit > il.StartV:
-		lim = fmt.Sprintf("%s%.0f V limit (the %.0f V %s plus the %s%.3g V output)", s, limit, il.StartV, il.What, s, h.VoutV)
+		lim = r.say("%s%.0f V limit (the %.0f V %s plus the %s%.3g V output)", s, limit, il.StartV, il.What, s, h.VoutV)
 	}
 	if sc.input.Source == InputUnknown {
 		if !v.haveIn || v.in == 0 {

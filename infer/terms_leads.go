@@ -3,6 +3,7 @@ package infer
 import (
 	"fmt"
 	"math"
+	"strconv"
 	"strings"
 
 	"github.com/whichreg/whichreg/catalog"
@@ -290,7 +291,7 @@ func termWiring(sc *scene, h Hypothesis, _ voltsView, r *reasons) {
 		if p.WiredTo == "" {
 			continue
 		}
-		key := fmt.Sprintf("pins.%d", n)
+		key := "pins." + strconv.Itoa(n)
 		if n > len(pk.Pins) {
 			r.add(key, 0.01, pFlatWired, "lead %d measured, but %s has only %d leads", n, pk.Outline, len(pk.Pins))
 			continue

@@ -3,6 +3,7 @@ package infer
 import (
 	"fmt"
 	"math"
+	"strconv"
 	"strings"
 )
 
@@ -16,7 +17,9 @@ import (
 // lookAlikeKey is what a variant looks like on the board: family, outline,
 // pinout, tab and output voltage.
 func lookAlikeKey(h Hypothesis) string {
-	return fmt.Sprintf("%s|%s|%s|%s|%g", h.Family.ID, h.Package.Outline, strings.Join(h.Package.Pins, ","), h.Package.Tab, h.VoutV)
+	// As fmt's %g would print the voltage, without fmt's cost (one key per
+	// hypothesis).
+	return h.Family.ID + "|" + h.Package.Outline + "|" + strings.Join(h.Package.Pins, ",") + "|" + h.Package.Tab + "|" + strconv.FormatFloat(h.VoutV, 'g', -1, 64)
 }
 
 // mergeVariants folds look-alike variants into one candidate each: the
