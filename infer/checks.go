@@ -199,8 +199,13 @@ func (sc *scene) inputSlip(res *Result) []string {
 		// The lowest trough: low mains, full load, low filter capacitance.
 		low, err := sc.ev.memo.solve(r.At(circuit.Corner{Mains: 1 - sc.input.MainsTol, CapFactor: 1 - FilterCapTolerance, Load: r.Load}))
 		if err == nil && vm < low.TroughV*0.95 {
-			return []string{fmt.Sprintf("lead %d (the input) reads %.2f V, but the [input] model (%s) never falls below %.1f V, even at low mains and full load: "+
-				"check input.secondary_vrms and input.filter_uf (a dried-out filter capacitor reads low too)", n, v, desc, low.TroughV)}
+			msg := fmt.Sprintf("lead %d (the input) reads %.2f V, but the [input] model (%s) never falls below %.1f V, even at low mains and full load: "+
+				"check input.secondary_vrms and input.filter_uf (a dried-out filter capacitor reads low too)", n, v, desc, low.TroughV)
+			if in.Rectifier == RectifierCenterTap {
+				// The usual slip: the whole winding read for one half.
+				msg += fmt.Sprintf("; for a center-tap, secondary_vrms is one half's voltage: if %s V is the whole winding end to end, write %s", trimFloat(in.SecondaryVrms.V), trimFloat(in.SecondaryVrms.V/2))
+			}
+			return []string{msg}
 		}
 	}
 	return nil

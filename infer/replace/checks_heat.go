@@ -57,11 +57,14 @@ func checkThermal(in Input, c cand) (Check, bool) {
 	}
 	ch := Check{Name: CheckThermal, Unit: "°C", Value: num(tj), Limit: num(f.TjMaxC), Margin: m, Status: st,
 		ValueText: fmt.Sprintf("Tj %.0f °C", tj), LimitText: fmt.Sprintf("%g °C", f.TjMaxC)}
-	where := "at high mains and full load"
-	if cd.BypassOhm > 0 {
-		where = fmt.Sprintf("at full load with %.2f V in, the worst point of the bypass resistor's share", c.atV)
+	at := "at high mains and full load"
+	if cd.Source == infer.InputDC { // a DC supply has no mains
+		at = "at the supply's highest and full load"
 	}
-	ch.Text = fmt.Sprintf("%.2f W %s through %s, from %g °C ambient", c.powerW, where, path, cd.AmbientC)
+	if cd.BypassOhm > 0 {
+		at = fmt.Sprintf("at full load with %.2f V in, the worst point of the bypass resistor's share", c.atV)
+	}
+	ch.Text = fmt.Sprintf("%.2f W %s through %s, from %g °C ambient", c.powerW, at, path, cd.AmbientC)
 	if st == Fail && thermalBoundOnly(in, c, theta, &ch) {
 		return ch, true
 	}
