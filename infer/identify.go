@@ -155,11 +155,14 @@ func Identify(c *catalog.Catalog, ev *Evidence, opts Options) (*Result, error) {
 	cands := make([]Candidate, len(hyps))
 	priorMass := 0.0
 	evidenceUsed := false
-	// Every candidate's reasons share one array (each slice capped at its
-	// own length, so a later append copies): one allocation, not four, per
-	// hypothesis.
-	arena := make([]Reason, 0, 12*len(hyps))
+	// The candidates' reasons share arrays of reasonChunk (each slice capped
+	// at its own length, so a later append copies): a few allocations for
+	// all the hypotheses, not four per hypothesis, and none copied to grow.
+	var arena []Reason
 	for i, h := range hyps {
+		if cap(arena)-len(arena) < reasonChunk/16 {
+			arena = make([]Reason, 0, reasonChunk)
+		}
 		start := len(arena)
 		arena = appendPriorReasons(arena, h, ev, c, sc.text)
 		// The not-in-catalog prior is a share of the catalog's mass before
@@ -206,6 +209,10 @@ func Identify(c *catalog.Catalog, ev *Evidence, opts Options) (*Result, error) {
 	res.Next = nextMeasurements(c, ev, res, opts)
 	return res, nil
 }
+
+// reasonChunk is how many reasons [Identify] allocates at a time (a
+// hypothesis has 3 to 15 of them).
+const reasonChunk = 1024
 
 // hypotheses lists every (family, package, voltage) of the catalog: one per
 // output voltage of a fixed family, one per package of an adjustable family

@@ -64,6 +64,7 @@ func (sc *scene) mirrorSlip(res *Result) []string {
 	}
 	ms := *sc
 	ms.ev, ms.text = m, false
+	ms.leads, ms.measured = m.Leads(), measuredLeads(m)
 	best, label := math.Inf(-1), ""
 	named := sc.c.Outline(sc.ev.Package)
 	if sc.packageContradicted() {

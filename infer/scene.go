@@ -20,11 +20,14 @@ type scene struct {
 	codeVolts []float64              // the output voltages the marking's voltage code reads as
 
 	text bool // format reason texts
+
+	leads    []int     // ev.Leads(), taken once for every hypothesis
+	measured []float64 // measuredLeads(ev), likewise
 }
 
 // newScene prepares the marking matches and the input model.
 func newScene(c *catalog.Catalog, ev *Evidence) (*scene, error) {
-	sc := &scene{c: c, ev: ev, legible: catalog.Legible(catalog.NormalizeMarking(ev.Marking))}
+	sc := &scene{c: c, ev: ev, legible: catalog.Legible(catalog.NormalizeMarking(ev.Marking)), leads: ev.Leads(), measured: measuredLeads(ev)}
 	if sc.legible {
 		sc.marks = map[string]catalog.Hit{}
 		for _, h := range catalog.Find(c, ev.Marking) {

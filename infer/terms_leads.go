@@ -286,7 +286,7 @@ func termOutline(sc *scene, h Hypothesis, _ voltsView, r *reasons) {
 // pinout gives it.
 func termWiring(sc *scene, h Hypothesis, _ voltsView, r *reasons) {
 	pk, f := h.Package, h.Family
-	for _, n := range sc.ev.Leads() {
+	for _, n := range sc.leads {
 		p, _ := sc.ev.Lead(n)
 		if p.WiredTo == "" {
 			continue

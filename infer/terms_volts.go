@@ -150,7 +150,7 @@ func termPolarity(sc *scene, h Hypothesis, _ voltsView, r *reasons) {
 		return
 	}
 	pos, neg := 0, 0
-	for _, x := range measuredLeads(sc.ev) {
+	for _, x := range sc.measured {
 		switch {
 		case x > 0.3:
 			pos++
