@@ -296,7 +296,11 @@ func circuitWords(own Check, cd Conditions) string {
 		// alone is a warn, see [boundOnly]).
 		return "the measured input itself is outside the part's limit: check the reading and what feeds the part"
 	}
-	s := "the circuit, not the part, is marginal " + where(own.Name, cd.Source)
+	at := where(own.Name, cd.Source)
+	if own.Name == CheckVinMax && cd.TransientV > 0 && own.Value != nil && math.Abs(*own.Value) >= cd.TransientV {
+		at = "at the stated transient (load dump)" // the surge, not the steady supply, crosses the limit
+	}
+	s := "the circuit, not the part, is marginal " + at
 	var on []string
 	if cd.LoadAssumed && own.Name != CheckVinMax {
 		on = append(on, "the assumed load")

@@ -64,7 +64,7 @@ func original(t testing.TB, c *catalog.Catalog, ev *infer.Evidence, spec string)
 // verdict and check statuses of candidates in "# expect:" lines:
 //
 //	# expect: FAMILY:OUTLINE VERDICT check=status … check.margin=M check.value=V
-//	# shortfall: CHECK value=V limit=L status=fail|warn passed_by=FAMILY:OUTLINE|none
+//	# shortfall: CHECK value=V limit=L status=fail|warn passed_by=FAMILY:OUTLINE|none text=WORDS
 //
 // A "# shortfall:" line pins a check the original part itself fails in the
 // circuit (status=warn: misses only on the assumed bound from a bare
@@ -244,6 +244,10 @@ func expectShortfalls(t *testing.T, c *catalog.Catalog, sres *replace.Result, li
 				}
 				if !strings.HasPrefix(sf.PassedBy, want) || (want == "" && sf.PassedBy != "") {
 					t.Errorf("shortfall %s passed by %q, want %q", f[0], sf.PassedBy, want)
+				}
+			case "text":
+				if want, got := strings.ReplaceAll(v, "_", " "), sf.Sentence(sres.Original.Label()); !strings.Contains(got, want) {
+					t.Errorf("shortfall %s sentence %q lacks %q", f[0], got, want)
 				}
 			default:
 				t.Fatalf("unknown shortfall expectation %q", kv)
