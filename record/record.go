@@ -16,6 +16,7 @@ import (
 	"math"
 	"regexp"
 	"strings"
+	"sync"
 	"time"
 
 	"github.com/whichreg/whichreg/catalog"
@@ -243,7 +244,7 @@ func RunnersUp(sres *replace.Result, chosen *replace.Replacement, n int) []Runne
 
 // keyComment matches a commented-out evidence key or table header (the
 // template's lines), which are not bench notes.
-var keyComment = regexp.MustCompile(`^\s*#\s*(\[[^\]]*\]|[A-Za-z0-9_."]+\s*=)`)
+var keyComment = sync.OnceValue(func() *regexp.Regexp { return regexp.MustCompile(`^\s*#\s*(\[[^\]]*\]|[A-Za-z0-9_."]+\s*=)`) })
 
 // annotation matches the project's own machine annotations of its scenario
 // files, "# want: 78xx TO-220 5", "# expect: LFxx:TO-220 needs-work
@@ -253,11 +254,13 @@ var keyComment = regexp.MustCompile(`^\s*#\s*(\[[^\]]*\]|[A-Za-z0-9_."]+\s*=)`)
 // alone, or followed by an outline name, an output voltage, a verdict or a
 // key=value. A note
 // in words ("# expect: hum at low mains") does not match and is kept.
-var annotation = regexp.MustCompile(`^#\s*(want|expect|original|shortfall):\s*[0-9A-Za-z]+(-[0-9A-Za-z]+)*(:\S+)?(\s*$|\s+([A-Z][A-Z0-9]*-?[0-9][A-Z0-9-]*|[0-9.]+|drop-in|needs-work|unsuitable|\S+=\S*)(\s|$))`)
+var annotation = sync.OnceValue(func() *regexp.Regexp {
+	return regexp.MustCompile(`^#\s*(want|expect|original|shortfall):\s*[0-9A-Za-z]+(-[0-9A-Za-z]+)*(:\S+)?(\s*$|\s+([A-Z][A-Z0-9]*-?[0-9][A-Z0-9-]*|[0-9.]+|drop-in|needs-work|unsuitable|\S+=\S*)(\s|$))`)
+})
 
 // labelled matches a comment line that starts a note of its own with a
 // label ("fuse: …", "expect: …") rather than going on with the one above.
-var labelled = regexp.MustCompile(`^[A-Za-z][\w-]*:\s`)
+var labelled = sync.OnceValue(func() *regexp.Regexp { return regexp.MustCompile(`^[A-Za-z][\w-]*:\s`) })
 
 // BenchNotes returns the comments of an evidence file as the technician
 // wrote them: whole-line comments, consecutive lines joined into one note
@@ -270,17 +273,17 @@ func BenchNotes(src []byte) []string {
 	para := false // the last note is a whole-line comment that may go on
 	for _, line := range strings.Split(string(src), "\n") {
 		t := strings.TrimSpace(line)
-		if !strings.HasPrefix(t, "#") || keyComment.MatchString(t) || annotation.MatchString(t) {
+		if !strings.HasPrefix(t, "#") || keyComment().MatchString(t) || annotation().MatchString(t) {
 			para = false
 		}
 		switch {
-		case t == "" || keyComment.MatchString(t) || annotation.MatchString(t):
+		case t == "" || keyComment().MatchString(t) || annotation().MatchString(t):
 		case strings.HasPrefix(t, "#"):
 			s := strings.TrimSpace(strings.TrimLeft(t, "#"))
 			switch {
 			case s == "":
 				para = false
-			case para && len(notes) > 0 && !labelled.MatchString(s):
+			case para && len(notes) > 0 && !labelled().MatchString(s):
 				notes[len(notes)-1] += " " + s // a paragraph written over several lines
 			default:
 				notes = append(notes, s)

@@ -10,6 +10,7 @@ import (
 	"os/signal"
 	"regexp"
 	"strings"
+	"sync"
 	"syscall"
 
 	"github.com/spf13/cobra"
@@ -190,7 +191,7 @@ func readLines(r io.Reader) (lines <-chan string, readErr <-chan error, stop cha
 func (o *guideOptions) newFile(ref string) (string, []byte, error) {
 	name := o.File
 	if name == "" {
-		base := strings.Trim(unsafeName.ReplaceAllString(ref, "-"), "-.")
+		base := strings.Trim(unsafeName().ReplaceAllString(ref, "-"), "-.")
 		if base == "" {
 			return "", nil, fmt.Errorf("%q cannot name a file: give the reference in letters and digits (U4, IC3)", ref)
 		}
@@ -206,7 +207,7 @@ func (o *guideOptions) newFile(ref string) (string, []byte, error) {
 	return name, doc, nil
 }
 
-var unsafeName = regexp.MustCompile(`[^A-Za-z0-9_.+-]+`)
+var unsafeName = sync.OnceValue(func() *regexp.Regexp { return regexp.MustCompile(`[^A-Za-z0-9_.+-]+`) })
 
 // color reports whether the probability bars may be coloured: a terminal,
 // no NO_COLOR (https://no-color.org), and a TERM that is not "dumb".
@@ -401,13 +402,13 @@ func guideNext(d *guide.Done) string {
 
 // shellQuote quotes s for a POSIX shell when it needs it.
 func shellQuote(s string) string {
-	if shellSafe.MatchString(s) {
+	if shellSafe().MatchString(s) {
 		return s
 	}
 	return "'" + strings.ReplaceAll(s, "'", `'\''`) + "'"
 }
 
-var shellSafe = regexp.MustCompile(`^[A-Za-z0-9_./+:-]+$`)
+var shellSafe = sync.OnceValue(func() *regexp.Regexp { return regexp.MustCompile(`^[A-Za-z0-9_./+:-]+$`) })
 
 func plural(n int, word string) string {
 	if n == 1 {

@@ -5,6 +5,7 @@ import (
 	"io"
 	"regexp"
 	"strings"
+	"sync"
 
 	"github.com/spf13/cobra"
 
@@ -28,7 +29,7 @@ func fitHelpFunc(root *cobra.Command, app *App) {
 
 // termLine is a line of a list: indent, a term (a flag or a command name,
 // single spaces allowed), a gap of two or more spaces, and its description.
-var termLine = regexp.MustCompile(`^( +)(\S(?:\S| \S)*)( {2,})(\S.*)$`)
+var termLine = sync.OnceValue(func() *regexp.Regexp { return regexp.MustCompile(`^( +)(\S(?:\S| \S)*)( {2,})(\S.*)$`) })
 
 // fitHelp folds the lines of a help text that are wider than width: a
 // flag's or command's description wraps under itself (or, when its column
@@ -51,7 +52,7 @@ func fitHelp(text string, width int) string {
 			out = append(out, foldCommand(line, width, indent)...)
 			continue
 		}
-		if m := termLine.FindStringSubmatch(line); m != nil {
+		if m := termLine().FindStringSubmatch(line); m != nil {
 			head := m[1] + m[2] + m[3]
 			if width-report.Width(head) >= 30 {
 				out = append(out, report.Wrap(m[4], width, head, strings.Repeat(" ", report.Width(head)))...)
