@@ -255,7 +255,6 @@ func rank(cands []Candidate, nicScore float64) ([]Candidate, float64) {
 	order := make([]int, len(cands))
 	for i := range cands {
 		cands[i].Probability = math.Exp(cands[i].Score-top) / z
-		cands[i].name()
 		order[i] = i
 	}
 	// Sort indices, not the (large) candidates.
@@ -264,7 +263,7 @@ func rank(cands []Candidate, nicScore float64) ([]Candidate, float64) {
 		if cands[i].Probability != cands[j].Probability {
 			return cands[i].Probability > cands[j].Probability
 		}
-		return cands[i].label < cands[j].label
+		return cands[i].name() < cands[j].name() // formatted on a tie only
 	})
 	sorted := make([]Candidate, len(cands))
 	for k, i := range order {

@@ -64,7 +64,7 @@ func (sc *scene) mirrorSlip(res *Result) []string {
 	}
 	ms := *sc
 	ms.ev, ms.text = m, false
-	ms.leads, ms.measured = m.Leads(), measuredLeads(m)
+	ms.leads, ms.measured, ms.volts = m.Leads(), measuredLeads(m), nil
 	best, label := math.Inf(-1), ""
 	named := sc.c.Outline(sc.ev.Package)
 	if sc.packageContradicted() {

@@ -23,6 +23,23 @@ type scene struct {
 
 	leads    []int     // ev.Leads(), taken once for every hypothesis
 	measured []float64 // measuredLeads(ev), likewise
+	// volts is terminalVolts by package (it depends on the package, its
+	// outline and the evidence only), made on first use; read-only.
+	volts map[*catalog.Package]map[string]float64
+}
+
+// terminalVolts is [terminalVolts] of h on the scene's evidence, made once
+// per package: the hypotheses of one package's voltages share it.
+func (sc *scene) terminalVolts(h Hypothesis) map[string]float64 {
+	if v, ok := sc.volts[h.Package]; ok {
+		return v
+	}
+	if sc.volts == nil {
+		sc.volts = map[*catalog.Package]map[string]float64{}
+	}
+	v := terminalVolts(h, sc.ev)
+	sc.volts[h.Package] = v
+	return v
 }
 
 // newScene prepares the marking matches and the input model.

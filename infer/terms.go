@@ -116,7 +116,7 @@ func (sc *scene) likelihoods(h Hypothesis) []Reason {
 // settled against the appended terms only.
 func (sc *scene) appendLikelihoods(dst []Reason, h Hypothesis) []Reason {
 	r := &reasons{rs: dst, start: len(dst), text: sc.text, vetoAt: -1}
-	v := viewOf(h, sc.ev)
+	v := viewWith(h, sc.terminalVolts(h))
 	for _, t := range likelihoodTerms() {
 		t(sc, h, v, r)
 	}
@@ -139,7 +139,13 @@ type voltsView struct {
 }
 
 func viewOf(h Hypothesis, ev *Evidence) voltsView {
-	v := voltsView{tv: terminalVolts(h, ev), outFn: senseFn(h), sign: 1, polarity: h.Family.Polarity}
+	return viewWith(h, terminalVolts(h, ev))
+}
+
+// viewWith is [viewOf] with the terminal voltages given (read, never
+// written).
+func viewWith(h Hypothesis, tv map[string]float64) voltsView {
+	v := voltsView{tv: tv, outFn: senseFn(h), sign: 1, polarity: h.Family.Polarity}
 	v.out, v.haveOut = v.tv[v.outFn]
 	v.in, v.haveIn = v.tv[catalog.PinIn]
 	v.com, v.haveCom = common(v.tv)
