@@ -18,6 +18,7 @@ func (sc *scene) conflicts(res *Result) []string {
 	out := selfContradictions(ev)
 	out = append(out, sc.packageSlip()...)
 	out = append(out, sc.inputSlip(res)...)
+	out = append(out, deadPart(ev)...)
 	out = append(out, sc.markingSlip(res)...)
 	out = append(out, sc.reversedLeads(res)...)
 	out = append(out, sc.mirrorSlip(res)...)
