@@ -64,7 +64,8 @@ func (sc *scene) mirrorSlip(res *Result) []string {
 	}
 	ms := *sc
 	ms.ev, ms.text = m, false
-	ms.leads, ms.measured, ms.volts = m.Leads(), measuredLeads(m), nil
+	ms.measured, ms.volts = measuredLeads(m), nil
+	ms.setLeads(m.Leads())
 	best, label := math.Inf(-1), ""
 	named := sc.c.Outline(sc.ev.Package)
 	if sc.packageContradicted() {

@@ -2,6 +2,7 @@ package infer
 
 import (
 	"math"
+	"strconv"
 
 	"github.com/whichreg/whichreg/catalog"
 	"github.com/whichreg/whichreg/infer/circuit"
@@ -22,6 +23,7 @@ type scene struct {
 	text bool // format reason texts
 
 	leads    []int     // ev.Leads(), taken once for every hypothesis
+	pinKeys  []string  // "pins.N" of each of leads
 	measured []float64 // measuredLeads(ev), likewise
 	// volts is terminalVolts by package (it depends on the package, its
 	// outline and the evidence only), made on first use; read-only.
@@ -42,9 +44,18 @@ func (sc *scene) terminalVolts(h Hypothesis) map[string]float64 {
 	return v
 }
 
+// setLeads sets the scene's lead list and the evidence key of each lead.
+func (sc *scene) setLeads(leads []int) {
+	sc.leads, sc.pinKeys = leads, make([]string, len(leads))
+	for i, n := range leads {
+		sc.pinKeys[i] = "pins." + strconv.Itoa(n)
+	}
+}
+
 // newScene prepares the marking matches and the input model.
 func newScene(c *catalog.Catalog, ev *Evidence) (*scene, error) {
-	sc := &scene{c: c, ev: ev, legible: catalog.Legible(catalog.NormalizeMarking(ev.Marking)), leads: ev.Leads(), measured: measuredLeads(ev)}
+	sc := &scene{c: c, ev: ev, legible: catalog.Legible(catalog.NormalizeMarking(ev.Marking)), measured: measuredLeads(ev)}
+	sc.setLeads(ev.Leads())
 	if sc.legible {
 		sc.marks = map[string]catalog.Hit{}
 		for _, h := range catalog.Find(c, ev.Marking) {

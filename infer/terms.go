@@ -79,7 +79,10 @@ func (r *reasons) veto(key string, format string, args ...any) {
 	if r.vetoAt < 0 {
 		r.vetoAt = len(r.rs)
 	}
-	r.add(key, vetoRatio, 1, "impossible for this part: "+format, args...)
+	if r.text {
+		format = "impossible for this part: " + format
+	}
+	r.add(key, vetoRatio, 1, format, args...)
 }
 
 // settle gives the first near-veto its weight: log(vetoRatio), less all the

@@ -3,7 +3,6 @@ package infer
 import (
 	"fmt"
 	"math"
-	"strconv"
 	"strings"
 
 	"github.com/whichreg/whichreg/catalog"
@@ -286,18 +285,23 @@ func termOutline(sc *scene, h Hypothesis, _ voltsView, r *reasons) {
 // pinout gives it.
 func termWiring(sc *scene, h Hypothesis, _ voltsView, r *reasons) {
 	pk, f := h.Package, h.Family
-	for _, n := range sc.leads {
+	for i, n := range sc.leads {
 		p, _ := sc.ev.Lead(n)
 		if p.WiredTo == "" {
 			continue
 		}
-		key := "pins." + strconv.Itoa(n)
+		key := sc.pinKeys[i]
 		if n > len(pk.Pins) {
 			r.add(key, 0.01, pFlatWired, "lead %d measured, but %s has only %d leads", n, pk.Outline, len(pk.Pins))
 			continue
 		}
 		fn := pk.Pins[n-1]
-		r.add(key, wiringOf(f, fn).p(p.WiredTo), pFlatWired, "lead %d to %s: this pinout puts %s there", n, p.WiredTo, fn)
+		q := wiringOf(f, fn).p(p.WiredTo)
+		if !r.text {
+			r.add(key, q, pFlatWired, "") // no text: nothing to box for it
+			continue
+		}
+		r.add(key, q, pFlatWired, "lead %d to %s: this pinout puts %s there", n, p.WiredTo, fn)
 	}
 }
 
