@@ -79,13 +79,19 @@ func termInputMax(sc *scene, h Hypothesis, v voltsView, r *reasons) {
 		return
 	}
 	s := f.SignText() // negative rails keep their sign in every figure
-	lim := r.say("%s%.0f V %s", s, limit, il.What)
-	switch {
-	case f.NonRegulator():
+	var lim string
+	if r.text { // formatted (and its arguments boxed) only when wanted
+		switch {
+		case f.NonRegulator():
+			lim = r.say("%.0f V voltage rating", limit)
+		case f.Adjustable() && h.VoutV > 0 && limit > il.StartV:
+			lim = r.say("%s%.0f V limit (the %.0f V %s plus the %s%.3g V output)", s, limit, il.StartV, il.What, s, h.VoutV)
+		default:
+			lim = r.say("%s%.0f V %s", s, limit, il.What)
+		}
+	}
+	if f.NonRegulator() {
 		s = ""
-		lim = r.say("%.0f V voltage rating", limit)
-	case f.Adjustable() && h.VoutV > 0 && limit > il.StartV:
-		lim = r.say("%s%.0f V limit (the %.0f V %s plus the %s%.3g V output)", s, limit, il.StartV, il.What, s, h.VoutV)
 	}
 	if sc.input.Source == InputUnknown {
 		if !v.haveIn || v.in == 0 {

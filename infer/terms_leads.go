@@ -108,6 +108,10 @@ func termPackage(sc *scene, h Hypothesis, _ voltsView, r *reasons) {
 		// must not lead on the strength of its readings (common practice,
 		// no source). A near-veto sends the mass to the named outline's
 		// families, the look-alikes or "not in the catalog".
+		if !r.text {
+			r.veto("package", "") // nothing to box for a text
+			return
+		}
 		r.veto("package", "package %s named, and a %s cannot be mistaken for it (%s)", ev.Package, o.Name, why)
 		return
 	}

@@ -90,7 +90,15 @@ func termRegulation(sc *scene, h Hypothesis, v voltsView, r *reasons) {
 	_, what := regulated(h)
 	com := f.Common(h.Package)
 	if z > vetoZ && (headroomOK(h, v, sc.ev) || !v.haveIn) {
+		if !r.text {
+			r.veto("voltages.regulation", "") // nothing to box for a text
+			return
+		}
 		r.veto("voltages.regulation", "%s − %s = %+.3f V, but this part holds %+.3f V ±%.3f there", held, com, d, v.sign*want, allowed)
+		return
+	}
+	if !r.text {
+		r.add("voltages.regulation", window(z), 0.05, "")
 		return
 	}
 	r.add("voltages.regulation", window(z), 0.05, "%s − %s = %+.3f V; the %s is %+.3f V ±%.3f", held, com, d, what, v.sign*want, allowed)
