@@ -127,7 +127,11 @@ func swapRun(o *swapOptions) error {
 	case "markdown":
 		writeSwapMarkdown(out, res, o.Details)
 	default:
-		writeSwapText(out, o.app.Width(), res, o.Details, o.Quiet)
+		var conflicts []string
+		if st.ires != nil {
+			conflicts = st.ires.Conflicts
+		}
+		writeSwapText(out, o.app.Width(), res, conflicts, o.Details, o.Quiet)
 	}
 	return nil
 }

@@ -3,6 +3,7 @@ package main
 import (
 	"fmt"
 	"io"
+	"strings"
 
 	"github.com/whichreg/whichreg/infer/replace"
 	"github.com/whichreg/whichreg/report"
@@ -38,7 +39,11 @@ func marginText(ch replace.Check) string {
 	return report.Signed(d, ch.Unit) + " (" + m + ")"
 }
 
-func writeSwapText(w io.Writer, width int, res *replace.Result, details int, quiet bool) {
+// writeSwapText writes the swap as text; conflicts are identification's
+// conflicts in the evidence, repeated here (when the original is
+// identification's leader) so that a slip or a dead part is not lost
+// between the two commands.
+func writeSwapText(w io.Writer, width int, res *replace.Result, conflicts []string, details int, quiet bool) {
 	cd := res.Conditions
 	sign := 1.0
 	if res.Original.Family.Negative() {
@@ -50,6 +55,15 @@ func writeSwapText(w io.Writer, width int, res *replace.Result, details int, qui
 		v(cd.VoutV), report.Num(cd.LoadMinA, "A"), report.Num(cd.LoadMaxA, "A"), v(cd.TroughV), cd.TroughAt, v(cd.PeakV), cd.PeakAt), width, "", "  ")
 	if cd.InputConflict != "" {
 		report.Fill(w, "conflict: "+cd.InputConflict, width, "", "  ")
+	}
+	if !res.Original.Named {
+		for _, c := range conflicts {
+			// swap states its own input conflict above; identification's
+			// wording of the same slip names "the [input] model".
+			if cd.InputConflict == "" || !strings.Contains(c, "[input] model") {
+				report.Fill(w, "conflict in the evidence (infer): "+c, width, "", "  ")
+			}
+		}
 	}
 	for _, sf := range res.OriginalShortfalls {
 		report.Fill(w, "note: "+sf.Sentence(res.Original.Label()), width, "", "  ")
